@@ -1,0 +1,19 @@
+# SPDX-License-Identifier: MIT
+# Finds the Debian packages sqfc builds against (see docs/dependencies.md).
+find_package(Threads REQUIRED)
+find_package(PkgConfig REQUIRED)
+find_package(Boost 1.74 REQUIRED)
+find_package(CLI11 2.1 CONFIG REQUIRED)
+
+# FLINT 2.9 ships neither a CMake config nor a .pc file.
+pkg_check_modules(GMP REQUIRED IMPORTED_TARGET gmp)
+pkg_check_modules(MPFR REQUIRED IMPORTED_TARGET mpfr)
+find_path(FLINT_INCLUDE_DIR flint/flint.h REQUIRED)
+find_library(FLINT_LIBRARY flint REQUIRED)
+if(NOT TARGET sqfc_flint)
+  add_library(sqfc_flint UNKNOWN IMPORTED)
+  set_target_properties(sqfc_flint PROPERTIES
+    IMPORTED_LOCATION "${FLINT_LIBRARY}"
+    INTERFACE_INCLUDE_DIRECTORIES "${FLINT_INCLUDE_DIR}"
+    INTERFACE_LINK_LIBRARIES "PkgConfig::MPFR;PkgConfig::GMP")
+endif()

@@ -1,0 +1,20 @@
+# SPDX-License-Identifier: MIT
+# Private interface target carrying warnings, sanitizers and assert switches.
+add_library(sqfc_build_flags INTERFACE)
+target_compile_features(sqfc_build_flags INTERFACE cxx_std_20)
+target_compile_options(sqfc_build_flags INTERFACE
+  $<$<CXX_COMPILER_ID:GNU,Clang>:-Wall -Wextra -Wpedantic -Wshadow -Wconversion -Wno-sign-conversion -Wno-restrict>)
+if(SQFC_WARNINGS_AS_ERRORS)
+  target_compile_options(sqfc_build_flags INTERFACE -Werror)
+endif()
+if(SQFC_ENABLE_NATIVE)
+  target_compile_options(sqfc_build_flags INTERFACE -march=native)
+endif()
+if(SQFC_ENABLE_ASSERT)
+  target_compile_definitions(sqfc_build_flags INTERFACE SQFC_ENABLE_ASSERT=1)
+endif()
+target_compile_definitions(sqfc_build_flags INTERFACE $<$<CONFIG:Debug>:SQFC_ENABLE_ASSERT=1>)
+if(SQFC_SANITIZE)
+  target_compile_options(sqfc_build_flags INTERFACE -fsanitize=${SQFC_SANITIZE} -fno-omit-frame-pointer)
+  target_link_options(sqfc_build_flags INTERFACE -fsanitize=${SQFC_SANITIZE})
+endif()

@@ -1,0 +1,47 @@
+// SPDX-License-Identifier: MIT
+// Shared pieces of the subcommands: invocation facts, number options, progress bar.
+#pragma once
+
+#include <chrono>
+#include <cstdint>
+#include <string>
+#include <vector>
+
+#include "sqfc/core/types.hpp"
+
+namespace sqfc::cli {
+
+/// What every subcommand knows about how it was called.
+struct Invocation {
+  std::vector<std::string> argv;
+  std::chrono::system_clock::time_point started;
+};
+
+/// Parses a number option with the sqfc syntax and checks [min, max]; the error names the option.
+Natural parse_number_option(const std::string& text, const std::string& option, Natural min, Natural max);
+
+/// Default worker count: the hardware threads, at least 1.
+unsigned default_thread_count();
+
+/// A one-line progress bar on stderr, drawn only when stderr is a terminal and not quiet.
+/// Redraws at most ten times a second; finish() clears the line.
+class ProgressBar {
+ public:
+  ProgressBar(std::string label, bool quiet);
+  ~ProgressBar();
+  void update(Natural done, Natural total);
+  void finish();
+  /// True when the bar draws (stderr is a terminal and not quiet).
+  [[nodiscard]] bool active() const noexcept { return active_; }
+
+ private:
+  std::string label_;
+  bool active_;
+  std::chrono::steady_clock::time_point start_, last_draw_;
+  bool drawn_ = false;
+};
+
+/// "1.23e9"-style short text of a count for progress output.
+std::string short_count(Natural n);
+
+}  // namespace sqfc::cli

@@ -1,0 +1,188 @@
+// SPDX-License-Identifier: MIT
+// `sqfc table`: parse, run the engine, write the table, events and manifest.
+#include "cmd_table.hpp"
+
+#include <CLI/CLI.hpp>
+#include <iostream>
+#include <memory>
+
+#include "sqfc/complex/face_counts.hpp"
+#include "sqfc/core/config.hpp"
+#include "sqfc/core/error.hpp"
+#include "sqfc/core/number_parse.hpp"
+#include "sqfc/io/atomic_file.hpp"
+#include "sqfc/io/manifest.hpp"
+
+namespace sqfc::cli {
+namespace {
+
+class FileSink : public track::TableSink {
+ public:
+  FileSink(io::TableWriter* table, io::EventWriter* events) : table_(table), events_(events) {}
+  void on_row(const track::TableRow& row) override {
+    if (table_) table_->write(row);
+  }
+  void on_event(const track::Event& event) override {
+    if (events_) events_->write(event);
+  }
+
+ private:
+  io::TableWriter* table_;
+  io::EventWriter* events_;
+};
+
+}  // namespace
+
+void add_table_command(CLI::App& app, TableArguments& a) {
+  auto* cmd = app.add_subcommand("table", "Invariants of K_n for every n up to N, written at sample points");
+  cmd->add_option("--to", a.to, "last n (required): digits, 1e9, 10^9 or 2^40")->required();
+  cmd->add_option("--from", a.from, "first n to report (values are those of a run from 1)");
+  cmd->add_option("--every", a.every, "sample every multiple of S");
+  cmd->add_option("--at", a.at, "sample at a comma-separated list of n");
+  cmd->add_option("--log", a.log, "sample K log-spaced points per decade, plus N");
+  cmd->add_option("--columns", a.columns, "comma-separated columns (default: all)");
+  cmd->add_option("--format", a.format, "csv, tsv, jsonl or bfile (one value column)");
+  cmd->add_option("--out", a.out, "output file, - for standard output (default: under data_out/table/)");
+  cmd->add_option("--events", a.events, "also write events (zeros, records, first dimensions) to this CSV file");
+  cmd->add_option("--threads", a.threads, "worker threads (default: all hardware threads)");
+  cmd->add_option("--block-size", a.block_size, "sieve block size in values (default 2^17)");
+  cmd->add_flag("--quiet,-q", a.quiet, std::string("no progress bar"));
+}
+
+TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
+  TableJob job;
+  auto& run = job.run;
+  run.to = parse_number_option(a.to, "--to", 1, config::max_sieve_n);
+  run.from = parse_number_option(a.from, "--from", 1, config::max_sieve_n);
+  if (run.from > run.to) throw InvalidArgument("--from " + a.from + " is larger than --to " + a.to);
+  run.threads = a.threads.empty() ? default_thread_count()
+                                  : static_cast<unsigned>(parse_number_option(a.threads, "--threads", 1, 256));
+  if (!a.block_size.empty())
+    run.block_size = static_cast<std::size_t>(parse_number_option(a.block_size, "--block-size", 1024, 1 << 24));
+  run.segment_size = std::max<Natural>(config::default_segment_size, run.block_size);
+
+  std::optional<Natural> every;
+  std::vector<Natural> at;
+  std::optional<unsigned> per_decade;
+  if (!a.every.empty()) every = parse_number_option(a.every, "--every", 1, config::max_sieve_n);
+  if (!a.at.empty()) {
+    for (const auto v : parse_natural_list(a.at, "--at")) {
+      if (v < 1 || v > config::max_sieve_n) throw InvalidArgument("--at: " + std::to_string(v) + " is outside [1, 10^16]");
+      at.push_back(v);
+    }
+  }
+  if (!a.log.empty()) per_decade = static_cast<unsigned>(parse_number_option(a.log, "--log", 1, 1'000'000));
+  const bool default_sampling = a.every.empty() && a.at.empty() && a.log.empty();
+  if (default_sampling) per_decade = 10;
+  run.samples = track::SampleSchedule(run.from, run.to, every, at, per_decade, per_decade.has_value());
+  if (run.samples.empty())
+    throw InvalidArgument("no sample point lies in [" + a.from + ", " + a.to + "]: nothing to write");
+
+  job.format = io::parse_table_format(a.format);
+  job.columns = a.columns.empty() ? io::default_columns(run.to) : io::parse_columns(a.columns, run.to);
+  if (job.format == io::TableFormat::bfile && (job.columns.size() != 2))
+    throw InvalidArgument("--format bfile needs exactly one value column, e.g. --columns mertens");
+  if (job.format == io::TableFormat::bfile)
+    job.bfile_comments = {"sqfc " + std::string("b-file: ") + io::column_name(job.columns[1]) + " for n in [" +
+                          std::to_string(run.from) + ", " + std::to_string(run.to) + "]"};
+
+  if (a.out.empty()) {
+    const std::string dir = "data_out/table/" + io::utc_compact_timestamp(invocation.started) + "-to" + a.to;
+    io::ensure_directory(dir);
+    job.out = dir + "/table." + std::string(io::table_format_extension(job.format));
+  } else {
+    job.out = a.out;
+  }
+  if (!a.events.empty()) {
+    job.events_path = a.events;
+    run.events = true;
+  }
+  job.quiet = a.quiet;
+  return job;
+}
+
+TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) {
+  const auto started = std::chrono::system_clock::now();
+  const auto clock_start = std::chrono::steady_clock::now();
+  // Open every output before the work starts, so an unwritable path fails at once.
+  io::AtomicOutputFile table_file(job.out);
+  std::unique_ptr<io::AtomicOutputFile> events_file;
+  if (job.events_path) events_file = std::make_unique<io::AtomicOutputFile>(*job.events_path);
+  const std::string manifest_path = !table_file.is_stdout() ? job.out + ".manifest.json"
+                                    : (events_file && !events_file->is_stdout()) ? *job.events_path + ".manifest.json"
+                                                                                  : "";
+  std::unique_ptr<io::AtomicOutputFile> manifest_probe;
+  if (!manifest_path.empty()) manifest_probe = std::make_unique<io::AtomicOutputFile>(manifest_path);
+
+  io::TableWriter table_writer(table_file.stream(), job.format, job.columns, job.bfile_comments);
+  std::unique_ptr<io::EventWriter> event_writer;
+  if (events_file) event_writer = std::make_unique<io::EventWriter>(events_file->stream());
+  FileSink sink(&table_writer, event_writer.get());
+
+  ProgressBar bar(job.label, job.quiet);
+  TableJobResult result;
+  result.report = track::run_table(job.run, sink, [&](Natural done, Natural total) { bar.update(done, total); });
+  bar.finish();
+  table_file.commit();
+  if (events_file) events_file->commit();
+  result.wall_seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - clock_start).count();
+
+  if (!manifest_path.empty()) {
+    const auto& r = result.report;
+    io::Json m = io::manifest_head(invocation.argv);
+    m.set("command", "table");
+    io::Json parameters;
+    parameters.set("from", job.run.from);
+    parameters.set("to", job.run.to);
+    parameters.set("sample_points", job.run.samples.size());
+    io::Json columns = io::Json::Array{};
+    for (const auto& c : job.columns) columns.push(io::column_name(c));
+    parameters.set("columns", std::move(columns));
+    parameters.set("format", std::string(io::table_format_extension(job.format)) == "txt" ? "bfile"
+                                 : std::string(io::table_format_extension(job.format)));
+    parameters.set("threads", job.run.threads);
+    parameters.set("block_size", static_cast<std::uint64_t>(job.run.block_size));
+    parameters.set("segment_size", job.run.segment_size);
+    parameters.set("events", job.run.events);
+    m.set("parameters", std::move(parameters));
+    m.set("started_utc", io::utc_timestamp(started));
+    m.set("finished_utc", io::utc_timestamp(std::chrono::system_clock::now()));
+    m.set("wall_seconds", result.wall_seconds);
+    m.set("threads", job.run.threads);
+    io::Json outputs;
+    outputs.set("table", job.out);
+    if (job.events_path) outputs.set("events", *job.events_path);
+    m.set("outputs", std::move(outputs));
+    io::Json counts;
+    counts.set("rows", r.rows);
+    counts.set("events", r.events);
+    counts.set("blocks", r.blocks);
+    counts.set("scanned_blocks", r.scanned_blocks);
+    m.set("counts", std::move(counts));
+    m.set("checks", io::checks_to_json(r.checks));
+    m.set("checks_passed", r.all_checks_passed());
+    m.set("final", io::row_to_json(r.final_state.row(), std::max(0, complex::max_face_dimension(job.run.to))));
+    manifest_probe->stream() << m.dump(2) << '\n';
+    manifest_probe->commit();
+    result.manifest_path = manifest_path;
+  }
+  return result;
+}
+
+int run_table_command(const TableArguments& args, const Invocation& invocation) {
+  const TableJob job = make_table_job(args, invocation);
+  const TableJobResult result = run_table_job(job, invocation);
+  if (!result.report.all_checks_passed()) {
+    for (const auto& c : result.report.checks)
+      if (c.failed)
+        std::cerr << "sqfc table: check " << c.name << " failed " << c.failed << " times, first at n = " << c.first_failure
+                  << "\n";
+    return exit_code::check_failed;
+  }
+  if (ProgressBar("", job.quiet).active() && !result.manifest_path.empty())
+    std::cerr << "sqfc table: wrote " << job.out << " (" << result.report.rows << " rows) in " << result.wall_seconds
+              << " s\n";
+  return exit_code::ok;
+}
+
+}  // namespace sqfc::cli

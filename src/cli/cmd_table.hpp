@@ -1,0 +1,53 @@
+// SPDX-License-Identifier: MIT
+// `sqfc table`: options, and the job runner shared with `sqfc demo`.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "cli_support.hpp"
+#include "sqfc/io/columns.hpp"
+#include "sqfc/io/table_writer.hpp"
+#include "sqfc/track/table_engine.hpp"
+
+namespace CLI {
+class App;
+}
+
+namespace sqfc::cli {
+
+/// Raw option text of `sqfc table`, as typed.
+struct TableArguments {
+  std::string to, from = "1", every, at, log, columns, format = "csv", out, events, threads, block_size;
+  bool quiet = false;
+};
+
+/// A validated table job.
+struct TableJob {
+  track::TableRunOptions run;
+  std::vector<io::Column> columns;
+  io::TableFormat format = io::TableFormat::csv;
+  std::string out;               ///< path or "-"
+  std::optional<std::string> events_path;
+  bool quiet = false;
+  std::vector<std::string> bfile_comments;
+  std::string label = "table";   ///< progress-bar label
+};
+
+/// What a finished job wrote and found.
+struct TableJobResult {
+  track::TableRunReport report;
+  std::string manifest_path;  ///< empty when no manifest was written
+  double wall_seconds = 0;
+};
+
+void add_table_command(CLI::App& app, TableArguments& args);
+/// Validates the arguments. Throws: InvalidArgument with a one-line message.
+TableJob make_table_job(const TableArguments& args, const Invocation& invocation);
+/// Runs the job, writes the table, events and manifest. Throws: Error.
+TableJobResult run_table_job(const TableJob& job, const Invocation& invocation);
+/// The whole subcommand: returns the exit code.
+int run_table_command(const TableArguments& args, const Invocation& invocation);
+
+}  // namespace sqfc::cli

@@ -1,0 +1,54 @@
+// SPDX-License-Identifier: MIT
+// The sqfc executable: subcommand dispatch and the one place errors become exit codes.
+#include <CLI/CLI.hpp>
+#include <chrono>
+#include <exception>
+#include <iostream>
+
+#include "cli_support.hpp"
+#include "cmd_demo.hpp"
+#include "cmd_table.hpp"
+#include "sqfc/core/error.hpp"
+#include "sqfc/core/version.hpp"
+
+int main(int argc, char** argv) {
+  sqfc::cli::Invocation invocation;
+  invocation.started = std::chrono::system_clock::now();
+  for (int i = 0; i < argc; ++i) invocation.argv.emplace_back(argv[i]);
+
+  CLI::App app{"sqfc: the squarefree complex K_n, its graphs and invariants"};
+  app.set_version_flag("--version", sqfc::version_string);
+  app.require_subcommand(1);
+  sqfc::cli::TableArguments table_args;
+  sqfc::cli::add_table_command(app, table_args);
+  sqfc::cli::DemoArguments demo_args;
+  sqfc::cli::add_demo_command(app, demo_args);
+
+  std::string command = "sqfc";
+  try {
+    try {
+      app.parse(argc, argv);
+    } catch (const CLI::ParseError& e) {
+      if (e.get_exit_code() == 0) return app.exit(e);  // --help, --version
+      std::string message = e.what();
+      for (auto& c : message)
+        if (c == '\n') c = ' ';
+      std::cerr << "sqfc: error: " << message << " (see sqfc --help)\n";
+      return sqfc::exit_code::bad_input;
+    }
+    for (const auto* sub : app.get_subcommands()) command = "sqfc " + sub->get_name();
+    if (app.got_subcommand("table")) return sqfc::cli::run_table_command(table_args, invocation);
+    if (app.got_subcommand("demo")) return sqfc::cli::run_demo_command(demo_args, invocation);
+    std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
+    return sqfc::exit_code::bad_input;
+  } catch (const sqfc::Error& e) {
+    std::cerr << command << ": error: " << e.what() << '\n';
+    return e.exit_code();
+  } catch (const std::bad_alloc&) {
+    std::cerr << command << ": error: out of memory\n";
+    return sqfc::exit_code::bad_input;
+  } catch (const std::exception& e) {
+    std::cerr << command << ": internal error: " << e.what() << '\n';
+    return sqfc::exit_code::internal;
+  }
+}

@@ -1,0 +1,61 @@
+// SPDX-License-Identifier: MIT
+// Event names, exact comparison of M(n)/sqrt(n), and the block test.
+#include "sqfc/track/events.hpp"
+
+namespace sqfc::track {
+
+std::string_view event_kind_name(EventKind kind) noexcept {
+  switch (kind) {
+    case EventKind::mertens_zero: return "mertens_zero";
+    case EventKind::mertens_high: return "mertens_high";
+    case EventKind::mertens_low: return "mertens_low";
+    case EventKind::scaled_high: return "scaled_high";
+    case EventKind::scaled_low: return "scaled_low";
+    case EventKind::first_face_dimension: return "first_face_dimension";
+    case EventKind::first_homology_dimension: return "first_homology_dimension";
+  }
+  return "unknown";
+}
+
+int compare_scaled(SignedSum m1, Natural n1, SignedSum m2, Natural n2) noexcept {
+  const int s1 = (m1 > 0) - (m1 < 0);
+  const int s2 = (m2 > 0) - (m2 < 0);
+  if (s1 != s2) return s1 < s2 ? -1 : 1;
+  if (s1 == 0) return 0;
+  // Same sign: compare m1^2 n2 with m2^2 n1 in 128 bits (m^2 <= 2^80, n < 2^54).
+  const auto a = static_cast<WideUnsigned>(static_cast<WideUnsigned>(m1 < 0 ? -m1 : m1) * (m1 < 0 ? -m1 : m1)) * n2;
+  const auto b = static_cast<WideUnsigned>(static_cast<WideUnsigned>(m2 < 0 ? -m2 : m2) * (m2 < 0 ? -m2 : m2)) * n1;
+  const int magnitude = (a > b) - (a < b);
+  return s1 > 0 ? magnitude : -magnitude;
+}
+
+bool EventDetector::may_fire_in(const TrackerState& before, const BlockSummary& s) const {
+  if (s.empty()) return false;
+  if (s.lo <= 2) return true;  // initialisation at n = 1 and b_0 at n = 2
+  const SignedSum m0 = before.mertens();
+  const SignedSum block_high = m0 + s.prefix_high;
+  const SignedSum block_low = m0 + s.prefix_low;
+  if (block_low <= 0 && block_high >= 0) return true;
+  if (block_high > high_ || block_low < low_) return true;
+  const Natural last = s.hi - 1;
+  if (last >= scaled_start) {
+    if (s.lo <= scaled_start) return true;
+    // Bounds of M(n)/sqrt(n) over the block from the bounds of M(n); a small slack keeps the
+    // floating-point test conservative (the exact comparison happens in observe()).
+    const double root_lo = std::sqrt(static_cast<double>(s.lo));
+    const double root_hi = std::sqrt(static_cast<double>(last));
+    const auto high = static_cast<double>(block_high);
+    const auto low = static_cast<double>(block_low);
+    const double upper = block_high >= 0 ? high / root_lo : high / root_hi;
+    const double lower = block_low <= 0 ? low / root_lo : low / root_hi;
+    constexpr double slack = 1e-9;
+    if (upper >= scaled_high_ - slack || lower <= scaled_low_ + slack) return true;
+  }
+  for (int w = 1; w < config::omega_slots; ++w) {
+    if (s.odd_squarefree[w] + s.even_squarefree[w] > 0 && !(face_dims_seen_ & (1U << (w - 1)))) return true;
+    if (w >= 2 && s.odd_squarefree[w] > 0 && !(homology_dims_seen_ & (1U << (w - 1)))) return true;
+  }
+  return false;
+}
+
+}  // namespace sqfc::track
