@@ -108,8 +108,8 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
   io::AtomicOutputFile table_file(job.out);
   std::unique_ptr<io::AtomicOutputFile> events_file;
   if (job.events_path) events_file = std::make_unique<io::AtomicOutputFile>(*job.events_path);
-  const std::string manifest_path = !table_file.is_stdout() ? job.out + ".manifest.json"
-                                    : (events_file && !events_file->is_stdout()) ? *job.events_path + ".manifest.json"
+  const std::string manifest_path = !table_file.is_stream() ? job.out + ".manifest.json"
+                                    : (events_file && !events_file->is_stream()) ? *job.events_path + ".manifest.json"
                                                                                   : "";
   std::unique_ptr<io::AtomicOutputFile> manifest_probe;
   if (!manifest_path.empty()) manifest_probe = std::make_unique<io::AtomicOutputFile>(manifest_path);

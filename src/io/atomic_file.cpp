@@ -18,6 +18,14 @@ AtomicOutputFile::AtomicOutputFile(std::string path) : path_(std::move(path)) {
   if (path_.empty()) throw IoError("output path is empty");
   if (is_stdout()) return;
   if (std::filesystem::is_directory(path_)) throw IoError("cannot write '" + path_ + "': it is a directory");
+  std::error_code ec;
+  const auto status = std::filesystem::status(path_, ec);
+  if (!ec && std::filesystem::exists(status) && !std::filesystem::is_regular_file(status)) {
+    direct_ = true;
+    file_.open(path_, std::ios::binary);
+    if (!file_) throw IoError("cannot write '" + path_ + "': " + std::strerror(errno));
+    return;
+  }
   temporary_ = path_ + ".part-" + std::to_string(::getpid());
   file_.open(temporary_, std::ios::binary | std::ios::trunc);
   if (!file_) throw IoError("cannot write '" + path_ + "': " + std::strerror(errno));
@@ -37,6 +45,13 @@ void AtomicOutputFile::commit() {
   if (is_stdout()) {
     std::cout.flush();
     if (!std::cout) throw IoError("writing to standard output failed");
+    committed_ = true;
+    return;
+  }
+  if (direct_) {
+    file_.flush();
+    if (!file_) throw IoError("writing '" + path_ + "' failed");
+    file_.close();
     committed_ = true;
     return;
   }

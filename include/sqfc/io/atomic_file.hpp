@@ -9,7 +9,9 @@
 namespace sqfc::io {
 
 /// Writes to `<path>.part-<pid>` and renames it to `path` on commit(), so a reader never sees
-/// a partial file. "-" means standard output (no file, commit() flushes).
+/// a partial file. "-" means standard output (no file, commit() flushes). An existing path
+/// that is not a regular file (/dev/null, a FIFO, a terminal) is written directly: renaming
+/// over a device would replace it.
 /// Invariant: until commit() succeeds, `path` is untouched; the destructor removes the
 /// temporary file of an uncommitted output.
 class AtomicOutputFile {
@@ -24,6 +26,9 @@ class AtomicOutputFile {
   [[nodiscard]] std::ostream& stream();
   [[nodiscard]] const std::string& path() const noexcept { return path_; }
   [[nodiscard]] bool is_stdout() const noexcept { return path_ == "-"; }
+  /// True for standard output and for existing non-regular files (devices, FIFOs): outputs
+  /// that get no manifest beside them.
+  [[nodiscard]] bool is_stream() const noexcept { return is_stdout() || direct_; }
   /// Flushes, closes and renames into place. Throws: IoError on a write or rename failure.
   void commit();
 
@@ -32,6 +37,7 @@ class AtomicOutputFile {
   std::string temporary_;
   std::ofstream file_;
   bool committed_ = false;
+  bool direct_ = false;  // an existing non-regular file, written in place
 };
 
 /// Creates the directory and its parents when missing. Throws: IoError.

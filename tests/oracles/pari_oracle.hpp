@@ -1,0 +1,42 @@
+// SPDX-License-Identifier: MIT
+// PARI/GP (libpari) as a reference library for tests: arithmetic functions, factorisations,
+// primality and prime counts of 64-bit integers.
+//
+// Only plain C++ types cross this header: PARI and FLINT both define `ulong`, so pari.h is
+// included by pari_oracle.cpp alone and no test translation unit ever sees it.
+#pragma once
+
+#include <cstdint>
+#include <utility>
+#include <vector>
+
+namespace sqfc::oracles {
+
+/// mu(n), omega(n) and Omega(n) as PARI computes them.
+struct PariArithmetic {
+  int mu;
+  int omega;
+  int big_omega;
+};
+
+/// PARI's moebius(n), omega(n) and bigomega(n) of one integer.
+/// Pre: n >= 1 (checked; std::invalid_argument).
+/// Thread-safety: PARI keeps its stack per thread (the Debian build is the TLS one), so every
+/// call must come from the thread that made the first call (checked; std::logic_error).
+PariArithmetic pari_arithmetic(std::uint64_t n);
+
+/// The same for every n in the half-open range [lo, hi), index i standing for n = lo + i.
+/// Pre: 1 <= lo <= hi (checked; std::invalid_argument). Thread-safety: as pari_arithmetic.
+std::vector<PariArithmetic> pari_arithmetic_range(std::uint64_t lo, std::uint64_t hi);
+
+/// PARI's factor(n) as (prime, exponent) pairs in increasing prime order; empty for n = 1.
+/// Pre: n >= 1 (checked; std::invalid_argument). Thread-safety: as pari_arithmetic.
+std::vector<std::pair<std::uint64_t, int>> pari_factor(std::uint64_t n);
+
+/// PARI's isprime(n): a proven answer (BPSW is a proof below 2^64). Thread-safety: as above.
+bool pari_is_prime(std::uint64_t n);
+
+/// PARI's primepi(x): the number of primes p <= x. Thread-safety: as above.
+std::uint64_t pari_prime_count(std::uint64_t x);
+
+}  // namespace sqfc::oracles
