@@ -95,10 +95,8 @@ void SegmentedSieve::reset(Natural lo, Natural hi) {
   }
 }
 
-bool SegmentedSieve::next_block() {
-  if (next_lo_ >= hi_) return false;
+void SegmentedSieve::sieve_words(std::size_t len) {
   const Natural lo = next_lo_;
-  const auto len = static_cast<std::size_t>(std::min<Natural>(block_size_, hi_ - lo));
   std::uint32_t* w = words_.data();
 
   // 1. Start from the pattern of the powers of 2, 3, 5, 7.
@@ -122,9 +120,15 @@ bool SegmentedSieve::next_block() {
     for (; j < len; j += q) w[j] += inc;
     offsets[e] = j - len;
   }
+}
 
-  // 3. Decide the remaining large prime and pack the result. The threshold depends only on
-  //    floor(log2 n), so the loop is split at powers of two.
+namespace {
+
+// Decides the remaining large prime for each n of [lo, lo + len) and calls
+// store(i, omega, big_omega, squarefree). The threshold depends only on floor(log2 n), so the
+// loop is split at powers of two.
+template <class Store>
+inline void finalize_words(Natural lo, std::size_t len, const std::uint32_t* w, Store&& store) {
   std::size_t i = 0;
   while (i < len) {
     const Natural n = lo + i;
@@ -138,11 +142,41 @@ bool SegmentedSieve::next_block() {
       const std::uint32_t omega = ((x >> 8) & 0xFFU) + large;
       const std::uint32_t big_omega = ((x >> 16) & 0xFFU) + large;
       const std::uint32_t squarefree = (x >> 24) == 0 ? 1U : 0U;
-      w[i] = omega | (squarefree << 4) | ((big_omega & 1U) << 5) | (big_omega << 8);
+      store(i, omega, big_omega, squarefree);
     }
   }
+}
 
+}  // namespace
+
+bool SegmentedSieve::next_block() {
+  if (next_lo_ >= hi_) return false;
+  const Natural lo = next_lo_;
+  const auto len = static_cast<std::size_t>(std::min<Natural>(block_size_, hi_ - lo));
+  sieve_words(len);
+  std::uint32_t* w = words_.data();
+  finalize_words(lo, len, w, [w](std::size_t i, std::uint32_t omega, std::uint32_t big_omega, std::uint32_t squarefree) {
+    w[i] = omega | (squarefree << 4) | ((big_omega & 1U) << 5) | (big_omega << 8);
+  });
   block_ = SieveBlock(lo, len, w);
+  last_lo_ = lo;
+  last_size_ = len;
+  next_lo_ = lo + len;
+  return true;
+}
+
+bool SegmentedSieve::next_block_codes(FactorCode* out) {
+  if (next_lo_ >= hi_) return false;
+  const Natural lo = next_lo_;
+  const auto len = static_cast<std::size_t>(std::min<Natural>(block_size_, hi_ - lo));
+  sieve_words(len);
+  finalize_words(lo, len, words_.data(),
+                 [out](std::size_t i, std::uint32_t omega, std::uint32_t big_omega, std::uint32_t squarefree) {
+                   out[i] = static_cast<FactorCode>(omega | (squarefree << 4) | ((big_omega & 1U) << 5));
+                 });
+  block_ = SieveBlock();
+  last_lo_ = lo;
+  last_size_ = len;
   next_lo_ = lo + len;
   return true;
 }

@@ -100,12 +100,10 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
     worker.segment_lo = seg_lo;
     worker.summaries.clear();
     worker.sieve.reset(seg_lo, seg_hi);
-    while (worker.sieve.next_block()) {
-      const auto& block = worker.sieve.block();
-      arith::FactorCode* out = worker.codes.data() + (block.lo() - seg_lo);
-      const std::uint32_t* words = block.words();
-      for (std::size_t i = 0; i < block.size(); ++i) out[i] = static_cast<arith::FactorCode>(words[i] & 0x3F);
-      worker.summaries.push_back(summarize_codes(block.lo(), out, block.size()));
+    for (Natural lo = seg_lo;; lo += worker.sieve.last_size()) {
+      arith::FactorCode* out = worker.codes.data() + (lo - seg_lo);
+      if (!worker.sieve.next_block_codes(out)) break;
+      worker.summaries.push_back(summarize_codes(worker.sieve.last_lo(), out, worker.sieve.last_size()));
     }
   };
 

@@ -94,6 +94,14 @@ class SegmentedSieve {
   /// Complexity: O(B log log hi + E) for a block of B values and E sieving entries.
   bool next_block();
 
+  /// Sieves the next block like next_block() but writes only the factor codes, out[i] for
+  /// n = last_lo() + i, skipping the word array's final pass (the table engine's fast path).
+  /// block() is not valid afterwards. Pre: out has room for block_size() codes (assumed).
+  bool next_block_codes(FactorCode* out);
+  /// First n and size of the block sieved last (by either call).
+  [[nodiscard]] Natural last_lo() const noexcept { return last_lo_; }
+  [[nodiscard]] std::size_t last_size() const noexcept { return last_size_; }
+
   /// The block sieved last. Pre: next_block() returned true (assumed).
   [[nodiscard]] const SieveBlock& block() const noexcept { return block_; }
   [[nodiscard]] std::size_t block_size() const noexcept { return block_size_; }
@@ -106,6 +114,11 @@ class SegmentedSieve {
   std::vector<std::uint64_t> offsets_;  // per entry: index of its next multiple from next_lo_
   std::vector<std::uint32_t> words_;
   SieveBlock block_;
+  Natural last_lo_ = 0;
+  std::size_t last_size_ = 0;
+
+  // Adds the pattern and every sieving entry for [next_lo_, next_lo_ + len) into words_.
+  void sieve_words(std::size_t len);
 };
 
 /// Sieves [lo, hi) block by block on the calling thread and calls visit(const SieveBlock&).
