@@ -20,5 +20,6 @@ if ((${#missing[@]})); then
   DEBIAN_FRONTEND=noninteractive $SUDO apt-get install -y -qq --no-install-recommends "${missing[@]}"
 fi
 
-cmake -S . -B "$BUILD_DIR" -DCMAKE_BUILD_TYPE=Release -DSQFC_WARNINGS_AS_ERRORS=ON ${SQFC_CMAKE_ARGS:-}
+cmake -S . -B "$BUILD_DIR" -DCMAKE_BUILD_TYPE=Release -DSQFC_BUILD_TESTS=ON -DSQFC_BUILD_CLI=ON \
+      -DSQFC_WARNINGS_AS_ERRORS=ON ${SQFC_CMAKE_ARGS:-}
 cmake --build "$BUILD_DIR" -j "$(nproc)"

@@ -5,6 +5,7 @@
 #include <unistd.h>
 
 #include <cmath>
+#include <csignal>
 #include <cstdio>
 #include <thread>
 
@@ -12,6 +13,20 @@
 #include "sqfc/core/number_parse.hpp"
 
 namespace sqfc::cli {
+namespace {
+volatile std::sig_atomic_t interrupt_signal = 0;
+extern "C" void remember_interrupt(int signal_number) { interrupt_signal = signal_number; }
+}  // namespace
+
+void install_interrupt_handlers() {
+  std::signal(SIGINT, remember_interrupt);
+  std::signal(SIGTERM, remember_interrupt);
+}
+
+void throw_if_interrupted() {
+  // 128 + signal number is the shell's convention for a run ended by a signal.
+  if (interrupt_signal != 0) throw Error("interrupted by signal " + std::to_string(interrupt_signal) + "; no output written", 128 + interrupt_signal);
+}
 
 Natural parse_number_option(const std::string& text, const std::string& option, Natural min, Natural max) {
   const Natural value = parse_natural(text, option);

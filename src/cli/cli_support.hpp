@@ -20,6 +20,12 @@ struct Invocation {
 /// Parses a number option with the sqfc syntax and checks [min, max]; the error names the option.
 Natural parse_number_option(const std::string& text, const std::string& option, Natural min, Natural max);
 
+/// Installs SIGINT/SIGTERM handlers that only raise a flag; long runs poll it through
+/// throw_if_interrupted() so that stack unwinding removes their temporary files.
+void install_interrupt_handlers();
+/// Throws Error("interrupted", 130) once a SIGINT or SIGTERM arrived.
+void throw_if_interrupted();
+
 /// Default worker count: the hardware threads, at least 1.
 unsigned default_thread_count();
 

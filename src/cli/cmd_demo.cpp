@@ -43,7 +43,8 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
   const Natural n_max = poster_job.run.to;
   const Natural bfile_to = std::min<Natural>(n_max, 10000);
   const std::vector<std::pair<std::string, std::string>> bfiles = {
-      {"mertens", "A002321"}, {"squarefree", "A013928 shifted: Q(n)"}, {"liouville", "A002819"}, {"b1", "none"}};
+      {"mertens", "OEIS A002321"}, {"squarefree", "OEIS A013928 (which counts squarefree k < n, so shifted by one)"},
+      {"liouville", "OEIS A002819"}, {"b1", "the odd squarefree m in (n/2, n] with two primes (no OEIS entry used)"}};
   std::vector<std::string> bfile_paths;
   bool checks_ok = poster_result.report.all_checks_passed();
   for (const auto& [column, sequence] : bfiles) {
@@ -56,7 +57,7 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
     b.threads = a.threads;
     b.quiet = true;
     TableJob job = make_table_job(b, invocation);
-    job.bfile_comments.push_back("compare with OEIS " + sequence);
+    job.bfile_comments.push_back("compare with " + sequence);
     const auto result = run_table_job(job, invocation);
     checks_ok = checks_ok && result.report.all_checks_passed();
     bfile_paths.push_back(b.out);

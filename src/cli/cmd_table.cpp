@@ -87,7 +87,7 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
                           std::to_string(run.from) + ", " + std::to_string(run.to) + "]"};
 
   if (a.out.empty()) {
-    const std::string dir = "data_out/table/" + io::utc_compact_timestamp(invocation.started) + "-to" + a.to;
+    const std::string dir = "data_out/table/" + io::utc_compact_timestamp(invocation.started) + "-to" + std::to_string(run.to);
     io::ensure_directory(dir);
     job.out = dir + "/table." + std::string(io::table_format_extension(job.format));
   } else {
@@ -121,7 +121,10 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
 
   ProgressBar bar(job.label, job.quiet);
   TableJobResult result;
-  result.report = track::run_table(job.run, sink, [&](Natural done, Natural total) { bar.update(done, total); });
+  result.report = track::run_table(job.run, sink, [&](Natural done, Natural total) {
+    throw_if_interrupted();
+    bar.update(done, total);
+  });
   bar.finish();
   table_file.commit();
   if (events_file) events_file->commit();

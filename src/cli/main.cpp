@@ -25,6 +25,17 @@ int main(int argc, char** argv) {
   sqfc::cli::add_demo_command(app, demo_args);
 
   std::string command = "sqfc";
+  sqfc::cli::install_interrupt_handlers();
+  // CLI11 reports an unknown first word as a missing subcommand; name it instead.
+  if (argc >= 2 && argv[1][0] != '-') {
+    const std::string word = argv[1];
+    bool known = false;
+    for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
+    if (!known) {
+      std::cerr << "sqfc: error: unknown command '" << word << "' (commands: table, demo; see sqfc --help)\n";
+      return sqfc::exit_code::bad_input;
+    }
+  }
   try {
     try {
       app.parse(argc, argv);

@@ -32,6 +32,7 @@ Json manifest_head(const std::vector<std::string>& command_line) {
   Json head;
   head.set("tool", "sqfc");
   head.set("version", version_string);
+  head.set("source_commit", SQFC_GIT_COMMIT);
   Json argv;
   for (const auto& a : command_line) argv.push(a);
   head.set("command_line", std::move(argv));

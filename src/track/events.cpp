@@ -2,6 +2,8 @@
 // Event names, exact comparison of M(n)/sqrt(n), and the block test.
 #include "sqfc/track/events.hpp"
 
+#include <boost/multiprecision/cpp_int.hpp>
+
 namespace sqfc::track {
 
 std::string_view event_kind_name(EventKind kind) noexcept {
@@ -22,10 +24,25 @@ int compare_scaled(SignedSum m1, Natural n1, SignedSum m2, Natural n2) noexcept 
   const int s2 = (m2 > 0) - (m2 < 0);
   if (s1 != s2) return s1 < s2 ? -1 : 1;
   if (s1 == 0) return 0;
-  // Same sign: compare m1^2 n2 with m2^2 n1 in 128 bits (m^2 <= 2^80, n < 2^54).
-  const auto a = static_cast<WideUnsigned>(static_cast<WideUnsigned>(m1 < 0 ? -m1 : m1) * (m1 < 0 ? -m1 : m1)) * n2;
-  const auto b = static_cast<WideUnsigned>(static_cast<WideUnsigned>(m2 < 0 ? -m2 : m2) * (m2 < 0 ? -m2 : m2)) * n1;
-  const int magnitude = (a > b) - (a < b);
+  // |m| without overflow at INT64_MIN.
+  const std::uint64_t abs1 = m1 < 0 ? static_cast<std::uint64_t>(-(m1 + 1)) + 1 : static_cast<std::uint64_t>(m1);
+  const std::uint64_t abs2 = m2 < 0 ? static_cast<std::uint64_t>(-(m2 + 1)) + 1 : static_cast<std::uint64_t>(m2);
+  int magnitude = 0;
+  constexpr std::uint64_t fast_limit = std::uint64_t{1} << 37;
+  if (abs1 < fast_limit && abs2 < fast_limit) {
+    // m^2 < 2^74 and n < 2^64 would overflow; n < 2^54 holds in the sieve range, and larger n
+    // take the exact path below.
+    if (n1 < (std::uint64_t{1} << 54) && n2 < (std::uint64_t{1} << 54)) {
+      const WideUnsigned a = static_cast<WideUnsigned>(abs1) * abs1 * n2;
+      const WideUnsigned b = static_cast<WideUnsigned>(abs2) * abs2 * n1;
+      magnitude = (a > b) - (a < b);
+      return s1 > 0 ? magnitude : -magnitude;
+    }
+  }
+  using boost::multiprecision::uint256_t;
+  const uint256_t a = uint256_t(abs1) * abs1 * n2;
+  const uint256_t b = uint256_t(abs2) * abs2 * n1;
+  magnitude = (a > b) - (a < b);
   return s1 > 0 ? magnitude : -magnitude;
 }
 

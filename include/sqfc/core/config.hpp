@@ -8,8 +8,8 @@
 
 namespace sqfc::config {
 
-/// Largest n the sieve accepts: 10^16. Verified by tests/arith/test_sieve_reference.cpp,
-/// which compares sieve blocks near 10^13 and 10^16 with PARI. The packed sieve word keeps
+/// Largest n the sieve accepts: 10^16. Verified against PARI by tests/arith/test_sieve_reference.cpp
+/// (random blocks up to 10^13) and tests/arith/test_sieve_reference_slow.cpp (blocks near 10^16). The packed sieve word keeps
 /// a log sum of at most 4.5 * log2(n) < 256 quarter-bits for n < 2^56, so the bound could
 /// be raised to 2^56 only after the same comparison is run there.
 inline constexpr Natural max_sieve_n = 10'000'000'000'000'000ULL;

@@ -2,7 +2,12 @@
 /// @file version.hpp  The sqfc version string, written into every manifest.
 #pragma once
 
+// SQFC_VERSION comes from project(VERSION ...) in CMakeLists.txt, the single source of truth.
+#ifndef SQFC_VERSION
+#error "SQFC_VERSION must be defined by the build (target sqfc::core)"
+#endif
+
 namespace sqfc {
 /// Semantic version of this build.
-inline constexpr const char* version_string = "0.1.0";
+inline constexpr const char* version_string = SQFC_VERSION;
 }  // namespace sqfc

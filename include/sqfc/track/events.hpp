@@ -65,7 +65,8 @@ class EventDetector {
 };
 
 /// Compares M1/sqrt(n1) with M2/sqrt(n2) exactly: negative, zero or positive like a - b.
-/// Pre: n1, n2 >= 1; |M| <= 2^40 (assumed; true for n <= 10^16 since |M(n)| <= n^(1/2+eps) in range).
+/// Pre: n1, n2 >= 1 (assumed). Exact for all 64-bit inputs: 128-bit products when |M| < 2^37
+/// (always in the sieve range, where |M(n)| < 2^27), 256-bit Boost.Multiprecision otherwise.
 int compare_scaled(SignedSum m1, Natural n1, SignedSum m2, Natural n2) noexcept;
 
 // ---------------------------------------------------------------------------------------------
