@@ -10,6 +10,7 @@
 
 #include "cmd_table.hpp"
 #include "sqfc/complex/face_counts.hpp"
+#include "sqfc/core/config.hpp"
 #include "sqfc/core/error.hpp"
 #include "sqfc/io/atomic_file.hpp"
 
@@ -19,11 +20,16 @@ void add_demo_command(CLI::App& app, DemoArguments& a) {
   auto* cmd = app.add_subcommand("demo", "Worked scenario: a poster table of the homology of K_n, into data_out/demo/");
   cmd->add_option("--to", a.to, "last n of the poster table (default 1e8)");
   cmd->add_option("--out-dir", a.out_dir, "folder for the demo's files (default data_out/demo)");
-  cmd->add_option("--threads", a.threads, "worker threads (default: all)");
+  cmd->add_option_function<std::string>(
+      "--threads", [&a](const std::string& v) { a.threads = v; }, "worker threads (default: all)");
   cmd->add_flag("--quiet,-q", a.quiet, std::string("no progress bar"));
 }
 
 int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
+  // Validate before creating anything, so a bad argument leaves no folder behind.
+  parse_number_option(a.to, "--to", 1, config::max_sieve_n);
+  if (a.threads) parse_number_option(*a.threads, "--threads", 1, 256);
+  if (a.out_dir.empty()) throw InvalidArgument("--out-dir: empty path");
   io::ensure_directory(a.out_dir);
   const auto started = std::chrono::steady_clock::now();
 
@@ -60,11 +66,11 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
     job.bfile_comments.push_back("compare with " + sequence);
     const auto result = run_table_job(job, invocation);
     checks_ok = checks_ok && result.report.all_checks_passed();
-    bfile_paths.push_back(b.out);
+    bfile_paths.push_back(*b.out);
   }
 
   // Read the events back: the births of homology dimensions and the zeros of M.
-  std::ifstream events(poster.events);
+  std::ifstream events(*poster.events);
   std::string line;
   std::getline(events, line);  // header
   std::map<long, std::string> births;
@@ -91,7 +97,7 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
 
   std::cout << "sqfc demo: the seminar's poster, \"Where the spheres of K_n are born\", n up to " << n_max << "\n"
             << "  table:    " << poster_job.out << " (" << poster_result.report.rows << " rows, 20 per decade)\n"
-            << "  events:   " << poster.events << " (" << total_events << " events)\n"
+            << "  events:   " << *poster.events << " (" << total_events << " events)\n"
             << "  manifest: " << poster_result.manifest_path << "\n"
             << "  b-files:  ";
   for (std::size_t i = 0; i < bfile_paths.size(); ++i) std::cout << (i ? ", " : "") << bfile_paths[i];

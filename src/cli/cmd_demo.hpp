@@ -2,6 +2,7 @@
 // `sqfc demo`: the worked scenario.
 #pragma once
 
+#include <optional>
 #include <string>
 
 #include "cli_support.hpp"
@@ -15,7 +16,7 @@ namespace sqfc::cli {
 struct DemoArguments {
   std::string to = "1e8";
   std::string out_dir = "data_out/demo";
-  std::string threads;
+  std::optional<std::string> threads;
   bool quiet = false;
 };
 

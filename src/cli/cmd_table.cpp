@@ -3,6 +3,7 @@
 #include "cmd_table.hpp"
 
 #include <CLI/CLI.hpp>
+#include <filesystem>
 #include <iostream>
 #include <memory>
 
@@ -31,21 +32,53 @@ class FileSink : public track::TableSink {
   io::EventWriter* events_;
 };
 
+// Two outputs (or an output and a manifest) on one file would overwrite each other after the
+// whole run; refuse before any work. Paths are compared after normalisation.
+void reject_shared_paths(const TableJob& job) {
+  std::vector<std::pair<std::string, std::string>> files;  // (normalised path, what)
+  auto add = [&](const std::string& path, const std::string& what) {
+    if (path == "-") return;
+    std::error_code ec;
+    const auto status = std::filesystem::status(path, ec);
+    if (!ec && std::filesystem::exists(status) && !std::filesystem::is_regular_file(status)) return;  // /dev/null etc.
+    files.emplace_back(std::filesystem::weakly_canonical(std::filesystem::absolute(path)).string(), what);
+  };
+  const auto add_with_manifest = [&](const std::string& path, const std::string& what) {
+    const auto before = files.size();
+    add(path, what);
+    if (files.size() > before) add(path + ".manifest.json", "the manifest of " + what);  // only beside real files
+  };
+  add_with_manifest(job.out, "--out");
+  if (job.events_path) add_with_manifest(*job.events_path, "--events");
+  for (std::size_t i = 0; i < files.size(); ++i)
+    for (std::size_t j = i + 1; j < files.size(); ++j)
+      if (files[i].first == files[j].first)
+        throw InvalidArgument(files[i].second + " and " + files[j].second + " name the same file '" + files[i].first + "'");
+}
+
 }  // namespace
 
 void add_table_command(CLI::App& app, TableArguments& a) {
   auto* cmd = app.add_subcommand("table", "Invariants of K_n for every n up to N, written at sample points");
   cmd->add_option("--to", a.to, "last n (required): digits, 1e9, 10^9 or 2^40")->required();
   cmd->add_option("--from", a.from, "first n to report (values are those of a run from 1)");
-  cmd->add_option("--every", a.every, "sample every multiple of S");
-  cmd->add_option("--at", a.at, "sample at a comma-separated list of n");
-  cmd->add_option("--log", a.log, "sample K log-spaced points per decade, plus N");
-  cmd->add_option("--columns", a.columns, "comma-separated columns (default: all)");
+  cmd->add_option_function<std::string>(
+      "--every", [&a](const std::string& v) { a.every = v; }, "sample every multiple of S");
+  cmd->add_option_function<std::string>(
+      "--at", [&a](const std::string& v) { a.at = v; }, "sample at a comma-separated list of n");
+  cmd->add_option_function<std::string>(
+      "--log", [&a](const std::string& v) { a.log = v; }, "sample K log-spaced points per decade, plus N");
+  cmd->add_option_function<std::string>(
+      "--columns", [&a](const std::string& v) { a.columns = v; }, "comma-separated columns (default: all)");
   cmd->add_option("--format", a.format, "csv, tsv, jsonl or bfile (one value column)");
-  cmd->add_option("--out", a.out, "output file, - for standard output (default: under data_out/table/)");
-  cmd->add_option("--events", a.events, "also write events (zeros, records, first dimensions) to this CSV file");
-  cmd->add_option("--threads", a.threads, "worker threads (default: all hardware threads)");
-  cmd->add_option("--block-size", a.block_size, "sieve block size in values (default 2^17)");
+  cmd->add_option_function<std::string>(
+      "--out", [&a](const std::string& v) { a.out = v; }, "output file, - for standard output (default: under data_out/table/)");
+  cmd->add_option_function<std::string>(
+      "--events", [&a](const std::string& v) { a.events = v; }, "also write events (zeros, records, first dimensions) to this CSV file");
+  cmd->add_option_function<std::string>(
+      "--threads", [&a](const std::string& v) { a.threads = v; }, "worker threads (default: all hardware threads)");
+  cmd->add_option_function<std::string>(
+      "--block-size", [&a](const std::string& v) { a.block_size = v; }, "sieve block size in values (default 2^17)");
   cmd->add_flag("--quiet,-q", a.quiet, std::string("no progress bar"));
 }
 
@@ -55,49 +88,58 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
   run.to = parse_number_option(a.to, "--to", 1, config::max_sieve_n);
   run.from = parse_number_option(a.from, "--from", 1, config::max_sieve_n);
   if (run.from > run.to) throw InvalidArgument("--from " + a.from + " is larger than --to " + a.to);
-  run.threads = a.threads.empty() ? default_thread_count()
-                                  : static_cast<unsigned>(parse_number_option(a.threads, "--threads", 1, 256));
-  if (!a.block_size.empty())
-    run.block_size = static_cast<std::size_t>(parse_number_option(a.block_size, "--block-size", 1024, 1 << 24));
+  run.threads = !a.threads ? default_thread_count()
+                           : static_cast<unsigned>(parse_number_option(*a.threads, "--threads", 1, 256));
+  if (a.block_size)
+    run.block_size = static_cast<std::size_t>(parse_number_option(*a.block_size, "--block-size", 1024, 1 << 24));
   run.segment_size = std::max<Natural>(config::default_segment_size, run.block_size);
 
   std::optional<Natural> every;
   std::vector<Natural> at;
   std::optional<unsigned> per_decade;
-  if (!a.every.empty()) every = parse_number_option(a.every, "--every", 1, config::max_sieve_n);
-  if (!a.at.empty()) {
-    for (const auto v : parse_natural_list(a.at, "--at")) {
+  if (a.every) every = parse_number_option(*a.every, "--every", 1, config::max_sieve_n);
+  if (a.at) {
+    for (const auto v : parse_natural_list(*a.at, "--at")) {
       if (v < 1 || v > config::max_sieve_n) throw InvalidArgument("--at: " + std::to_string(v) + " is outside [1, 10^16]");
       at.push_back(v);
     }
   }
-  if (!a.log.empty()) per_decade = static_cast<unsigned>(parse_number_option(a.log, "--log", 1, 1'000'000));
-  const bool default_sampling = a.every.empty() && a.at.empty() && a.log.empty();
+  if (a.log) per_decade = static_cast<unsigned>(parse_number_option(*a.log, "--log", 1, 1000));
+  const bool default_sampling = !a.every && !a.at && !a.log;
   if (default_sampling) per_decade = 10;
   run.samples = track::SampleSchedule(run.from, run.to, every, at, per_decade, per_decade.has_value());
   if (run.samples.empty())
-    throw InvalidArgument("no sample point lies in [" + a.from + ", " + a.to + "]: nothing to write");
+  {
+    std::string asked;
+    if (a.every) asked += " --every " + *a.every;
+    if (a.at) asked += " --at " + *a.at;
+    throw InvalidArgument("no sample point of" + asked + " lies in [--from " + a.from + ", --to " + a.to +
+                          "]: nothing to write");
+  }
 
   job.format = io::parse_table_format(a.format);
-  job.columns = a.columns.empty() ? io::default_columns(run.to) : io::parse_columns(a.columns, run.to);
+  job.columns = !a.columns ? io::default_columns(run.to) : io::parse_columns(*a.columns, run.to);
   if (job.format == io::TableFormat::bfile && (job.columns.size() != 2))
     throw InvalidArgument("--format bfile needs exactly one value column, e.g. --columns mertens");
   if (job.format == io::TableFormat::bfile)
     job.bfile_comments = {"sqfc " + std::string("b-file: ") + io::column_name(job.columns[1]) + " for n in [" +
                           std::to_string(run.from) + ", " + std::to_string(run.to) + "]"};
 
-  if (a.out.empty()) {
+  if (a.out && a.out->empty()) throw InvalidArgument("--out: empty path (use - for standard output)");
+  if (a.events && a.events->empty()) throw InvalidArgument("--events: empty path (use - for standard output)");
+  if (!a.out) {
     const std::string dir = "data_out/table/" + io::utc_compact_timestamp(invocation.started) + "-to" + std::to_string(run.to);
     io::ensure_directory(dir);
     job.out = dir + "/table." + std::string(io::table_format_extension(job.format));
   } else {
-    job.out = a.out;
+    job.out = *a.out;
   }
-  if (!a.events.empty()) {
-    job.events_path = a.events;
+  if (a.events) {
+    job.events_path = *a.events;
     run.events = true;
   }
   job.quiet = a.quiet;
+  reject_shared_paths(job);
   return job;
 }
 

@@ -17,9 +17,11 @@ class App;
 
 namespace sqfc::cli {
 
-/// Raw option text of `sqfc table`, as typed.
+/// Raw option text of `sqfc table`, as typed. An option that was not given is nullopt, so
+/// that an empty value (`--every ""`) is an error rather than a silent default.
 struct TableArguments {
-  std::string to, from = "1", every, at, log, columns, format = "csv", out, events, threads, block_size;
+  std::string to, from = "1", format = "csv";
+  std::optional<std::string> every, at, log, columns, out, events, threads, block_size;
   bool quiet = false;
 };
 

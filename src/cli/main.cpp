@@ -11,6 +11,15 @@
 #include "sqfc/core/error.hpp"
 #include "sqfc/core/version.hpp"
 
+namespace {
+// Messages quote user input; a newline in it must not break the one-line rule.
+std::string one_line(std::string message) {
+  for (auto& c : message)
+    if (c == '\n' || c == '\r') c = ' ';
+  return message;
+}
+}  // namespace
+
 int main(int argc, char** argv) {
   sqfc::cli::Invocation invocation;
   invocation.started = std::chrono::system_clock::now();
@@ -32,7 +41,7 @@ int main(int argc, char** argv) {
     bool known = false;
     for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << word << "' (commands: table, demo; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, demo; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }
@@ -53,13 +62,13 @@ int main(int argc, char** argv) {
     std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
     return sqfc::exit_code::bad_input;
   } catch (const sqfc::Error& e) {
-    std::cerr << command << ": error: " << e.what() << '\n';
+    std::cerr << command << ": error: " << one_line(e.what()) << '\n';
     return e.exit_code();
   } catch (const std::bad_alloc&) {
     std::cerr << command << ": error: out of memory\n";
     return sqfc::exit_code::bad_input;
   } catch (const std::exception& e) {
-    std::cerr << command << ": internal error: " << e.what() << '\n';
+    std::cerr << command << ": internal error: " << one_line(e.what()) << '\n';
     return sqfc::exit_code::internal;
   }
 }

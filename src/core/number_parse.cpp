@@ -13,7 +13,7 @@ std::string quoted(std::string_view what, std::string_view text) {
 
 // Plain decimal digits; the caller names the whole token in errors.
 std::uint64_t parse_digits(std::string_view digits, std::string_view what, std::string_view whole) {
-  if (digits.empty() || digits.size() > 40)
+  if (digits.empty())
     throw InvalidArgument(quoted(what, whole) + " is not a number (use digits, 1e9, 10^9 or 2^40)");
   std::uint64_t value = 0;
   for (char c : digits) {
@@ -48,6 +48,7 @@ std::uint64_t parse_natural(std::string_view text, std::string_view what) {
   if (const auto e = text.find_first_of("eE"); e != std::string_view::npos) {
     const auto mantissa = parse_digits(text.substr(0, e), what, text);
     const auto exponent = parse_digits(text.substr(e + 1), what, text);
+    if (mantissa == 0) return 0;  // 0e20 is 0, not an overflow of 10^20
     const auto scale = power(10, exponent, what, text);
     std::uint64_t value = 0;
     if (__builtin_mul_overflow(mantissa, scale, &value))

@@ -45,7 +45,7 @@ TableWriter::TableWriter(std::ostream& out, TableFormat format, std::vector<Colu
 void TableWriter::write(const track::TableRow& row) {
   switch (format_) {
     case TableFormat::bfile:
-      out_ << row.n << ' ' << column_value(columns_[1], row) << '\n';
+      out_ << std::to_string(row.n) << ' ' << column_value(columns_[1], row) << '\n';
       return;
     case TableFormat::jsonl:
       out_ << '{';
@@ -69,9 +69,10 @@ void TableWriter::write(const track::TableRow& row) {
 EventWriter::EventWriter(std::ostream& out) : out_(out) { out_ << "kind,n,value\n"; }
 
 void EventWriter::write(const track::Event& e) {
-  out_ << track::event_kind_name(e.kind) << ',' << e.n << ',';
+  // std::to_string, not operator<<, so that the stream's locale cannot group digits.
+  out_ << track::event_kind_name(e.kind) << ',' << std::to_string(e.n) << ',';
   if (e.kind == track::EventKind::scaled_high || e.kind == track::EventKind::scaled_low) out_ << format_decimal(e.scaled, 12);
-  else out_ << e.value;
+  else out_ << std::to_string(e.value);
   out_ << '\n';
 }
 

@@ -134,10 +134,12 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
           const bool report_n = n >= options.from;
           if (options.events) detector.observe(state, code, report_n, emit_event);
           if (n == sample) {
-            const TableRow row = state.row();
-            if (options.self_checks) checks.check_row(row);
-            ++report.rows;
-            sink.on_row(row);
+            if (report_n) {
+              const TableRow row = state.row();
+              if (options.self_checks) checks.check_row(row);
+              ++report.rows;
+              sink.on_row(row);
+            }
             const auto following = options.samples.next_at_or_after(n + 1);
             sample = (following && *following < s.hi) ? *following : 0;
           }

@@ -19,7 +19,7 @@ struct PariArithmetic {
   int big_omega;
 };
 
-/// PARI's moebius(n), omega(n) and bigomega(n) of one integer.
+/// PARI's moebius, omega and bigomega of one integer (applied to PARI's factor(n)).
 /// Pre: n >= 1 (checked; std::invalid_argument).
 /// Thread-safety: PARI keeps its stack per thread (the Debian build is the TLS one), so every
 /// call must come from the thread that made the first call (checked; std::logic_error).

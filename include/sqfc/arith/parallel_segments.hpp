@@ -32,7 +32,8 @@ void for_each_segment_ordered(Natural lo, Natural hi, Natural segment_size, unsi
   if (segment_size < 1) throw InvalidArgument("segment size must be at least 1");
   if (threads < 1) throw InvalidArgument("thread count must be at least 1");
   if (hi <= lo) return;
-  const Natural segment_count = (hi - lo + segment_size - 1) / segment_size;
+  // Written so that nothing wraps even for ranges next to 2^64.
+  const Natural segment_count = (hi - lo - 1) / segment_size + 1;
   const unsigned worker_count = static_cast<unsigned>(std::min<Natural>(threads, segment_count));
 
   std::atomic<Natural> next_segment{0};
@@ -48,7 +49,7 @@ void for_each_segment_ordered(Natural lo, Natural hi, Natural segment_size, unsi
         const Natural s = next_segment.fetch_add(1);
         if (s >= segment_count) break;
         const Natural seg_lo = lo + s * segment_size;
-        const Natural seg_hi = std::min(hi, seg_lo + segment_size);
+        const Natural seg_hi = seg_lo + std::min(segment_size, hi - seg_lo);
         work(worker, s, seg_lo, seg_hi);
         std::unique_lock<std::mutex> lock(turn_mutex);
         turn_changed.wait(lock, [&] { return committed == s || failed.load(); });

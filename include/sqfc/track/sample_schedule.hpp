@@ -17,7 +17,8 @@ class SampleSchedule {
  public:
   SampleSchedule() = default;
   /// Pre: 1 <= from <= to (checked; InvalidArgument); every >= 1 when given; 1 <= per_decade
-  /// <= 10^6 when given (checked). Points of `at` outside [from, to] are dropped.
+  /// <= 1000 when given (checked). Log points are exact: rounding is confirmed with integer
+  /// powers (FLINT) near half-integers and above 2^53. Points of `at` outside [from, to] are dropped.
   /// Complexity: O(|at| log |at| + per_decade * 20) time and memory.
   SampleSchedule(Natural from, Natural to, std::optional<Natural> every, std::vector<Natural> at,
                  std::optional<unsigned> per_decade, bool include_end);
