@@ -7,6 +7,7 @@
 
 #include "cli_support.hpp"
 #include "cmd_demo.hpp"
+#include "cmd_fredholm.hpp"
 #include "cmd_table.hpp"
 #include "sqfc/core/error.hpp"
 #include "sqfc/core/version.hpp"
@@ -32,6 +33,8 @@ int main(int argc, char** argv) {
   sqfc::cli::add_table_command(app, table_args);
   sqfc::cli::DemoArguments demo_args;
   sqfc::cli::add_demo_command(app, demo_args);
+  sqfc::cli::FredholmArguments fredholm_args;
+  sqfc::cli::add_fredholm_command(app, fredholm_args);
 
   std::string command = "sqfc";
   sqfc::cli::install_interrupt_handlers();
@@ -41,7 +44,7 @@ int main(int argc, char** argv) {
     bool known = false;
     for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, demo; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, fredholm, demo; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }
@@ -59,6 +62,7 @@ int main(int argc, char** argv) {
     for (const auto* sub : app.get_subcommands()) command = "sqfc " + sub->get_name();
     if (app.got_subcommand("table")) return sqfc::cli::run_table_command(table_args, invocation);
     if (app.got_subcommand("demo")) return sqfc::cli::run_demo_command(demo_args, invocation);
+    if (app.got_subcommand("fredholm")) return sqfc::cli::run_fredholm_command(fredholm_args, invocation);
     std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
     return sqfc::exit_code::bad_input;
   } catch (const sqfc::Error& e) {

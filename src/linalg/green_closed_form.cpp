@@ -25,6 +25,20 @@ std::int64_t smooth_sum(const std::vector<std::int32_t>& mertens, const std::uin
   return total;
 }
 
+// sum over t | d^infinity with t <= y of lambda(t) Q(floor(y / t)): the squarefree t' <= y
+// coprime to d (the Dirichlet series prod_{p | d} 1/(1 + p^-s) times zeta(s)/zeta(2s)).
+std::int64_t coprime_squarefree(const std::vector<std::uint32_t>& squarefree, const std::uint32_t* primes,
+                                std::size_t count, std::size_t from, Natural y, int sign) {
+  std::int64_t total = sign * static_cast<std::int64_t>(squarefree[y]);
+  for (std::size_t i = from; i < count; ++i) {
+    const Natural p = primes[i];
+    int power_sign = -sign;
+    for (Natural z = y / p; z > 0; z /= p, power_sign = -power_sign)
+      total += coprime_squarefree(squarefree, primes, count, i + 1, z, power_sign);
+  }
+  return total;
+}
+
 }  // namespace
 
 GreenClosedForm::GreenClosedForm(Natural n) : n_(n) {
@@ -32,11 +46,15 @@ GreenClosedForm::GreenClosedForm(Natural n) : n_(n) {
     throw InvalidArgument("closed-form Green tables are limited to 1 <= n <= 2*10^8, got " + std::to_string(n));
   mertens_.assign(n + 1, 0);
   smallest_prime_.assign(n + 1, 0);
+  squarefree_.assign(n + 1, 0);
   std::int64_t running = 0;
+  std::uint32_t count = 0;
   arith::sieve_range(1, n + 1, [&](const arith::SieveBlock& block) {
     for (std::size_t i = 0; i < block.size(); ++i) {
       running += block.mu(i);
+      count += block.is_squarefree(i) ? 1 : 0;
       mertens_[block.lo() + i] = static_cast<std::int32_t>(running);
+      squarefree_[block.lo() + i] = count;
     }
   });
   // Smallest prime factors: primes p <= sqrt(n) mark their multiples; the rest are prime.
@@ -101,6 +119,20 @@ GreenStatistics GreenClosedForm::statistics_at(Natural m) const {
   const Count total = stats.vertices * stats.vertices;
   if (total > nonzero) stats.histogram[0] += total - nonzero;
   return stats;
+}
+
+Count GreenClosedForm::shared_factor_edges_at(Natural m) const {
+  if (m > n_) throw InvalidArgument("edge count at n = " + std::to_string(m) + " needs tables up to it");
+  Wide total = 0;
+  std::uint32_t primes[16];
+  for (Natural d = 2; d <= m / 2; ++d) {
+    if (mu(d) == 0) continue;
+    std::size_t w = 0;
+    for (Natural k = d; k > 1; k /= smallest_prime_[k]) primes[w++] = smallest_prime_[k];
+    const auto s = static_cast<Wide>(coprime_squarefree(squarefree_, primes, w, 0, m / d, 1));
+    total += -static_cast<Wide>(mu(d)) * s * (s - 1) / 2;
+  }
+  return static_cast<Count>(total);
 }
 
 }  // namespace sqfc::linalg

@@ -20,7 +20,7 @@ namespace sqfc::linalg {
 class GreenClosedForm {
  public:
   /// Sieves the tables for n. Pre: 1 <= n <= 2 * 10^8 (checked; InvalidArgument).
-  /// Complexity: O(n log log n) time; 8 bytes per integer up to n.
+  /// Complexity: O(n log log n) time; 12 bytes per integer up to n.
   explicit GreenClosedForm(Natural n);
 
   [[nodiscard]] Natural n() const noexcept { return n_; }
@@ -42,6 +42,14 @@ class GreenClosedForm {
   [[nodiscard]] GreenStatistics statistics() const { return statistics_at(n_); }
   /// Statistics of g_m for any 1 <= m <= n (checked; InvalidArgument).
   [[nodiscard]] GreenStatistics statistics_at(Natural m) const;
+  /// Edges of H_m for m <= n without enumeration (design.md identity 8):
+  /// sum over squarefree d >= 2 of -mu(d) C(S_d(m), 2), where S_d(m) counts the squarefree
+  /// multiples of d up to m, i.e. squarefree t <= m/d coprime to d, evaluated as
+  /// sum over t | d^infinity of lambda(t) Q(m / (d t)). Pre: m <= n (checked).
+  /// Complexity: O(sum over d <= m/2 of the d-smooth t <= m/d).
+  [[nodiscard]] Count shared_factor_edges_at(Natural m) const;
+  /// Q(k), the squarefree count. Pre: k <= n (assumed).
+  [[nodiscard]] Count squarefree_count(Natural k) const noexcept { return squarefree_[k]; }
   /// The distinct prime factors of k, increasing. Pre: 1 <= k <= n (assumed).
   [[nodiscard]] std::vector<std::uint32_t> prime_factors(Natural k) const;
 
@@ -49,6 +57,7 @@ class GreenClosedForm {
   Natural n_;
   std::vector<std::int32_t> mertens_;          // M(k), k = 0..n; |M(k)| < 2^31 for k <= 2*10^8
   std::vector<std::uint32_t> smallest_prime_;  // smallest prime factor, k = 0..n (0, 1 -> 0)
+  std::vector<std::uint32_t> squarefree_;      // Q(k), k = 0..n
 };
 
 }  // namespace sqfc::linalg

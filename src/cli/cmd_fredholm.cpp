@@ -1,0 +1,202 @@
+// SPDX-License-Identifier: MIT
+// `sqfc fredholm`: parse, run, write rows, histograms, an optional matrix dump and a manifest.
+#include "cmd_fredholm.hpp"
+
+#include <CLI/CLI.hpp>
+#include <iostream>
+#include <memory>
+
+#include "sqfc/core/config.hpp"
+#include "sqfc/core/checked.hpp"
+#include "sqfc/core/error.hpp"
+#include "sqfc/core/number_parse.hpp"
+#include "sqfc/core/version.hpp"
+#include "sqfc/io/atomic_file.hpp"
+#include "sqfc/io/manifest.hpp"
+#include "sqfc/track/fredholm_run.hpp"
+
+namespace sqfc::cli {
+namespace {
+
+// Largest n for the bordered default; beyond it the closed form is the default.
+constexpr Natural bordered_default_limit = 10'000;
+
+std::string wide_text(Wide v) { return to_string_wide(v); }
+
+class FredholmFileSink : public track::FredholmSink {
+ public:
+  FredholmFileSink(std::ostream& out, std::ostream* histogram) : out_(out), histogram_(histogram) {
+    out_ << "n,vertices,edges,fredholm,energy,green_min,green_max,green_distinct,positive_eigenvalues,"
+            "negative_eigenvalues,even_faces,odd_faces,checks\n";
+    if (histogram_) *histogram_ << "n,value,count,diagonal_count\n";
+  }
+  void on_row(const track::FredholmRow& r) override {
+    out_ << r.n << ',' << r.vertices << ',' << r.edges << ',' << r.fredholm << ',' << wide_text(r.energy) << ',';
+    if (r.stats) out_ << r.stats->min() << ',' << r.stats->max() << ',' << r.stats->histogram.size() << ',';
+    else out_ << ",,,";
+    if (r.has_inertia) out_ << r.positive_eigenvalues << ',' << r.negative_eigenvalues << ',';
+    else out_ << ",,";
+    out_ << r.even_faces << ',' << r.odd_faces << ',' << r.checks << '\n';
+    if (histogram_ && r.stats) {
+      for (const auto& [value, count] : r.stats->histogram) {
+        const auto d = r.stats->diagonal_histogram.find(value);
+        *histogram_ << r.n << ',' << value << ',' << count << ',' << (d == r.stats->diagonal_histogram.end() ? 0 : d->second)
+                    << '\n';
+      }
+      // Diagonal values that never occur off the diagonal cannot exist: every diagonal entry
+      // is also an entry. Nothing else to write.
+    }
+  }
+
+ private:
+  std::ostream& out_;
+  std::ostream* histogram_;
+};
+
+}  // namespace
+
+void add_fredholm_command(CLI::App& app, FredholmArguments& a) {
+  auto* cmd = app.add_subcommand("fredholm", "Fredholm determinant and Green function of the shared-factor graph H_n");
+  cmd->add_option("--to", a.to, "last n (required)")->required();
+  cmd->add_option_function<std::string>("--every", [&a](const std::string& v) { a.every = v; }, "sample every multiple of S");
+  cmd->add_option_function<std::string>("--at", [&a](const std::string& v) { a.at = v; }, "sample at a comma-separated list of n");
+  cmd->add_option_function<std::string>("--log", [&a](const std::string& v) { a.log = v; }, "K log-spaced samples per decade, plus N (default 10)");
+  cmd->add_option_function<std::string>("--method", [&a](const std::string& v) { a.method = v; },
+                                        "bordered (exact matrix; default for N <= 10^4) or closed (closed form; default above)");
+  cmd->add_flag("--green-stats", a.green_stats, std::string("Green value extremes and distinct values at each sample"));
+  cmd->add_flag("--cross-check", a.cross_check, std::string("bordered: compare every entry with the closed form at each sample"));
+  cmd->add_option_function<std::string>("--histogram", [&a](const std::string& v) { a.histogram = v; },
+                                        "write Green value histograms (n,value,count,diagonal_count) to this CSV");
+  cmd->add_option_function<std::vector<std::string>>(
+         "--dump-green",
+         [&a](const std::vector<std::string>& v) {
+           a.dump_n = v.at(0);
+           a.dump_file = v.at(1);
+         },
+         "write g_n at this n to FILE (Matrix Market, symmetric integer)")
+      ->expected(2);
+  cmd->add_option_function<std::string>("--threads", [&a](const std::string& v) { a.threads = v; }, "threads for the bordered update");
+  cmd->add_option_function<std::string>("--memory-limit", [&a](const std::string& v) { a.memory_limit = v; },
+                                        "bytes the bordered matrix may use (default 2^32)");
+  cmd->add_option_function<std::string>("--out", [&a](const std::string& v) { a.out = v; }, "output CSV (default under data_out/fredholm/), - for stdout");
+  cmd->add_flag("--quiet,-q", a.quiet, std::string("no progress bar"));
+}
+
+int run_fredholm_command(const FredholmArguments& a, const Invocation& invocation) {
+  track::FredholmRunOptions options;
+  options.to = parse_number_option(a.to, "--to", 1, 200'000'000ULL);
+  const Natural n_max = options.to;
+  std::optional<Natural> every;
+  std::vector<Natural> at;
+  std::optional<unsigned> per_decade;
+  if (a.every) every = parse_number_option(*a.every, "--every", 1, n_max);
+  if (a.at)
+    for (const auto v : parse_natural_list(*a.at, "--at")) {
+      if (v < 1 || v > n_max) throw InvalidArgument("--at: " + std::to_string(v) + " is outside [1, --to]");
+      at.push_back(v);
+    }
+  if (a.log) per_decade = static_cast<unsigned>(parse_number_option(*a.log, "--log", 1, 1000));
+  if (!a.every && !a.at && !a.log) per_decade = 10;
+  std::optional<Natural> dump_n;
+  if (a.dump_n) {
+    dump_n = parse_number_option(*a.dump_n, "--dump-green", 1, n_max);
+    if (a.dump_file->empty()) throw InvalidArgument("--dump-green: empty file name");
+    at.push_back(*dump_n);
+  }
+  options.samples = track::SampleSchedule(1, n_max, every, at, per_decade, per_decade.has_value());
+  if (options.samples.empty()) throw InvalidArgument("no sample point of --every/--at lies in [1, --to " + a.to + "]");
+  if (a.method && *a.method != "bordered" && *a.method != "closed")
+    throw InvalidArgument("--method: unknown method '" + *a.method + "' (use bordered or closed)");
+  const bool bordered = a.method ? *a.method == "bordered" : n_max <= bordered_default_limit;
+  options.method = bordered ? track::FredholmMethod::bordered : track::FredholmMethod::closed;
+  options.green_stats = a.green_stats || a.histogram.has_value();
+  options.cross_check = a.cross_check;
+  if (a.cross_check && !bordered) throw InvalidArgument("--cross-check compares the bordered matrix with the closed form; use --method bordered");
+  options.threads = a.threads ? static_cast<unsigned>(parse_number_option(*a.threads, "--threads", 1, 256)) : default_thread_count();
+  options.memory_limit = a.memory_limit ? parse_number_option(*a.memory_limit, "--memory-limit", 1, ~0ULL) : (std::uint64_t{1} << 32);
+  if (a.out && a.out->empty()) throw InvalidArgument("--out: empty path (use - for standard output)");
+  if (a.histogram && a.histogram->empty()) throw InvalidArgument("--histogram: empty path");
+
+  std::string out_path;
+  if (a.out) {
+    out_path = *a.out;
+  } else {
+    const std::string dir = "data_out/fredholm/" + io::utc_compact_timestamp(invocation.started) + "-to" + std::to_string(n_max);
+    io::ensure_directory(dir);
+    out_path = dir + "/fredholm.csv";
+  }
+  const auto started = std::chrono::system_clock::now();
+  const auto clock_start = std::chrono::steady_clock::now();
+  io::AtomicOutputFile out(out_path);
+  std::unique_ptr<io::AtomicOutputFile> histogram, dump;
+  if (a.histogram) histogram = std::make_unique<io::AtomicOutputFile>(*a.histogram);
+  if (dump_n) dump = std::make_unique<io::AtomicOutputFile>(*a.dump_file);
+  std::unique_ptr<io::AtomicOutputFile> manifest;
+  if (!out.is_stream()) manifest = std::make_unique<io::AtomicOutputFile>(out_path + ".manifest.json");
+
+  if (dump_n) {
+    options.matrix_at = *dump_n;
+    options.on_matrix = [&](Natural n, const std::vector<Natural>& vertices, std::size_t count,
+                            const std::function<std::int64_t(std::size_t, std::size_t)>& entry) {
+      std::ostream& o = dump->stream();
+      Count nonzero = 0;
+      for (std::size_t i = 0; i < count; ++i)
+        for (std::size_t j = 0; j <= i; ++j) nonzero += entry(i, j) != 0;
+      o << "%%MatrixMarket matrix coordinate integer symmetric\n"
+        << "% sqfc " << version_string << ": Green function g_n = (1 + A(H_n))^-1, n = " << n << "\n"
+        << "% row/column i is the i-th squarefree integer in [2, n]; the lower triangle is listed\n";
+      o << count << ' ' << count << ' ' << nonzero << '\n';
+      for (std::size_t j = 0; j < count; ++j)
+        for (std::size_t i = j; i < count; ++i)
+          if (const auto v = entry(i, j); v != 0) o << (i + 1) << ' ' << (j + 1) << ' ' << v << '\n';
+      (void)vertices;
+    };
+  }
+
+  FredholmFileSink sink(out.stream(), histogram ? &histogram->stream() : nullptr);
+  ProgressBar bar("fredholm", a.quiet);
+  const auto report = track::run_fredholm(options, sink, [&](Natural done, Natural total) {
+    throw_if_interrupted();
+    bar.update(done, total);
+  });
+  bar.finish();
+  out.commit();
+  if (histogram) histogram->commit();
+  if (dump) dump->commit();
+  const double wall = std::chrono::duration<double>(std::chrono::steady_clock::now() - clock_start).count();
+  if (manifest) {
+    io::Json m = io::manifest_head(invocation.argv);
+    m.set("command", "fredholm");
+    io::Json parameters;
+    parameters.set("to", n_max);
+    parameters.set("method", bordered ? "bordered" : "closed");
+    parameters.set("sample_points", options.samples.size());
+    parameters.set("green_stats", options.green_stats);
+    parameters.set("cross_check", options.cross_check);
+    parameters.set("threads", options.threads);
+    parameters.set("memory_limit", options.memory_limit);
+    m.set("parameters", std::move(parameters));
+    m.set("started_utc", io::utc_timestamp(started));
+    m.set("finished_utc", io::utc_timestamp(std::chrono::system_clock::now()));
+    m.set("wall_seconds", wall);
+    m.set("threads", options.threads);
+    io::Json outputs;
+    outputs.set("table", out_path);
+    if (a.histogram) outputs.set("histogram", *a.histogram);
+    if (dump_n) outputs.set("green_matrix", *a.dump_file);
+    m.set("outputs", std::move(outputs));
+    m.set("rows", report.rows);
+    m.set("checks", io::checks_to_json(report.checks));
+    m.set("checks_passed", report.all_checks_passed());
+    manifest->stream() << m.dump(2) << '\n';
+    manifest->commit();
+  }
+  if (!report.all_checks_passed()) {
+    for (const auto& c : report.checks)
+      if (c.failed) std::cerr << "sqfc fredholm: check " << c.name << " failed " << c.failed << " times, first at n = " << c.first_failure << "\n";
+    return exit_code::check_failed;
+  }
+  return exit_code::ok;
+}
+
+}  // namespace sqfc::cli
