@@ -4,6 +4,8 @@ find_package(Threads REQUIRED)
 find_package(PkgConfig REQUIRED)
 find_package(Boost 1.74 REQUIRED)
 find_package(CLI11 2.1 CONFIG REQUIRED)
+# Symmetric eigenvalues for the spectrum check (Debian: liblapack-dev, libblas-dev).
+find_package(LAPACK REQUIRED)
 
 # FLINT 2.9 ships neither a CMake config nor a .pc file.
 pkg_check_modules(GMP REQUIRED IMPORTED_TARGET gmp)

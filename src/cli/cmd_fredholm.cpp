@@ -13,6 +13,7 @@
 #include "sqfc/core/version.hpp"
 #include "sqfc/io/atomic_file.hpp"
 #include "sqfc/io/manifest.hpp"
+#include "sqfc/io/table_writer.hpp"
 #include "sqfc/track/fredholm_run.hpp"
 
 namespace sqfc::cli {
@@ -27,16 +28,20 @@ class FredholmFileSink : public track::FredholmSink {
  public:
   FredholmFileSink(std::ostream& out, std::ostream* histogram) : out_(out), histogram_(histogram) {
     out_ << "n,vertices,edges,fredholm,energy,green_min,green_max,green_distinct,positive_eigenvalues,"
-            "negative_eigenvalues,even_faces,odd_faces,checks\n";
+            "negative_eigenvalues,even_faces,odd_faces,flint_fredholm,spectrum_positive,spectrum_negative,"
+            "spectrum_margin,div_fredholm,checks\n";
     if (histogram_) *histogram_ << "n,value,count,diagonal_count\n";
   }
   void on_row(const track::FredholmRow& r) override {
     out_ << r.n << ',' << r.vertices << ',' << r.edges << ',' << r.fredholm << ',' << wide_text(r.energy) << ',';
-    if (r.stats) out_ << r.stats->min() << ',' << r.stats->max() << ',' << r.stats->histogram.size() << ',';
+    if (r.stats && r.vertices > 0) out_ << r.stats->min() << ',' << r.stats->max() << ',' << r.stats->histogram.size() << ',';
     else out_ << ",,,";
     if (r.has_inertia) out_ << r.positive_eigenvalues << ',' << r.negative_eigenvalues << ',';
     else out_ << ",,";
-    out_ << r.even_faces << ',' << r.odd_faces << ',' << r.checks << '\n';
+    out_ << r.even_faces << ',' << r.odd_faces << ',' << r.flint_fredholm.value_or("") << ',';
+    if (r.has_spectrum) out_ << r.spectrum_positive << ',' << r.spectrum_negative << ',' << io::format_decimal(r.spectrum_margin, 6) << ',';
+    else out_ << ",,,";
+    out_ << r.div_fredholm.value_or("") << ',' << r.checks << '\n';
     if (histogram_ && r.stats) {
       for (const auto& [value, count] : r.stats->histogram) {
         const auto d = r.stats->diagonal_histogram.find(value);
@@ -62,9 +67,13 @@ void add_fredholm_command(CLI::App& app, FredholmArguments& a) {
   cmd->add_option_function<std::string>("--at", [&a](const std::string& v) { a.at = v; }, "sample at a comma-separated list of n");
   cmd->add_option_function<std::string>("--log", [&a](const std::string& v) { a.log = v; }, "K log-spaced samples per decade, plus N (default 10)");
   cmd->add_option_function<std::string>("--method", [&a](const std::string& v) { a.method = v; },
-                                        "bordered (exact matrix; default for N <= 10^4) or closed (closed form; default above)");
+                                        "bordered (exact matrix; default for N <= 10^4), closed (closed form; default above) or "
+                                        "flint (bordered plus FLINT determinants, certified inverse and zeta identity; N <= 2000)");
   cmd->add_flag("--green-stats", a.green_stats, std::string("Green value extremes and distinct values at each sample"));
   cmd->add_flag("--cross-check", a.cross_check, std::string("bordered: compare every entry with the closed form at each sample"));
+  cmd->add_flag("--spectrum", a.spectrum, std::string("LAPACK eigenvalue signs with a verified margin at samples n <= 5000"));
+  cmd->add_flag("--divisibility", a.divisibility,
+                std::string("exploratory: det(1 + A(G_n)) of the divisibility graph at samples n <= 2000 (FLINT)"));
   cmd->add_option_function<std::string>("--histogram", [&a](const std::string& v) { a.histogram = v; },
                                         "write Green value histograms (n,value,count,diagonal_count) to this CSV");
   cmd->add_option_function<std::vector<std::string>>(
@@ -105,9 +114,14 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   }
   options.samples = track::SampleSchedule(1, n_max, every, at, per_decade, per_decade.has_value());
   if (options.samples.empty()) throw InvalidArgument("no sample point of --every/--at lies in [1, --to " + a.to + "]");
-  if (a.method && *a.method != "bordered" && *a.method != "closed")
-    throw InvalidArgument("--method: unknown method '" + *a.method + "' (use bordered or closed)");
-  const bool bordered = a.method ? *a.method == "bordered" : n_max <= bordered_default_limit;
+  if (a.method && *a.method != "bordered" && *a.method != "closed" && *a.method != "flint")
+    throw InvalidArgument("--method: unknown method '" + *a.method + "' (use bordered, closed or flint)");
+  const bool flint = a.method && *a.method == "flint";
+  if (flint && n_max > 2000) throw InvalidArgument("--method flint is limited to --to <= 2000 (exact FLINT determinants)");
+  const bool bordered = a.method ? *a.method != "closed" : n_max <= bordered_default_limit;
+  options.flint_checks = flint;
+  options.spectrum = a.spectrum;
+  options.divisibility = a.divisibility;
   options.method = bordered ? track::FredholmMethod::bordered : track::FredholmMethod::closed;
   options.green_stats = a.green_stats || a.histogram.has_value();
   options.cross_check = a.cross_check;
@@ -116,6 +130,8 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   options.memory_limit = a.memory_limit ? parse_number_option(*a.memory_limit, "--memory-limit", 1, ~0ULL) : (std::uint64_t{1} << 32);
   if (a.out && a.out->empty()) throw InvalidArgument("--out: empty path (use - for standard output)");
   if (a.histogram && a.histogram->empty()) throw InvalidArgument("--histogram: empty path");
+
+  track::check_fredholm_options(options);  // refuse before any output exists
 
   std::string out_path;
   if (a.out) {
@@ -169,7 +185,9 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
     m.set("command", "fredholm");
     io::Json parameters;
     parameters.set("to", n_max);
-    parameters.set("method", bordered ? "bordered" : "closed");
+    parameters.set("method", flint ? "flint" : bordered ? "bordered" : "closed");
+    parameters.set("spectrum", options.spectrum);
+    parameters.set("divisibility", options.divisibility);
     parameters.set("sample_points", options.samples.size());
     parameters.set("green_stats", options.green_stats);
     parameters.set("cross_check", options.cross_check);

@@ -16,7 +16,7 @@ namespace sqfc::cli {
 struct FredholmArguments {
   std::string to;
   std::optional<std::string> every, at, log, method, out, histogram, dump_n, dump_file, threads, memory_limit;
-  bool green_stats = false, cross_check = false, spectrum = false, quiet = false;
+  bool green_stats = false, cross_check = false, spectrum = false, divisibility = false, quiet = false;
 };
 
 void add_fredholm_command(CLI::App& app, FredholmArguments& args);

@@ -3,6 +3,7 @@
 #include "sqfc/linalg/bordered_green.hpp"
 
 #include <algorithm>
+#include <cstdio>
 #include <string>
 #include <thread>
 
@@ -38,16 +39,26 @@ void add_row(std::int64_t* u, const std::int32_t* row, std::size_t k) {
   for (std::size_t j = 0; j < k; ++j) u[j] += row[j];
 }
 
+std::string mebibytes(std::uint64_t bytes) {
+  char text[32];
+  std::snprintf(text, sizeof text, "%.1f", static_cast<double>(bytes) / (1024.0 * 1024.0));
+  return text;
+}
+
 }  // namespace
+
+void BorderedGreen::check_memory(std::size_t capacity, std::uint64_t memory_limit_bytes) {
+  const auto bytes = bytes_for(capacity);
+  if (bytes > memory_limit_bytes)
+    throw InvalidArgument("bordered tracking of " + std::to_string(capacity) + " vertices needs " + std::to_string(bytes) +
+                          " bytes (" + mebibytes(bytes) + " MiB), above the limit of " +
+                          std::to_string(memory_limit_bytes) + " bytes (" + mebibytes(memory_limit_bytes) +
+                          " MiB); use --method closed (closed-form Green values, no matrix)");
+}
 
 BorderedGreen::BorderedGreen(std::size_t capacity, std::uint64_t memory_limit_bytes, unsigned threads)
     : capacity_(capacity), threads_(std::max(1U, threads)) {
-  const auto bytes = bytes_for(capacity);
-  if (bytes > memory_limit_bytes)
-    throw InvalidArgument("bordered tracking of " + std::to_string(capacity) + " vertices needs " +
-                          std::to_string(bytes >> 20) + " MiB, above the limit of " +
-                          std::to_string(memory_limit_bytes >> 20) +
-                          " MiB; use --method closed (closed-form Green values, no matrix)");
+  check_memory(capacity, memory_limit_bytes);
   g_.assign(capacity * capacity, 0);
   u_.assign(capacity, 0);
   u32_.assign(capacity, 0);
@@ -110,6 +121,7 @@ int BorderedGreen::add_vertex(std::span<const std::uint32_t> neighbours) {
     g_[j * capacity_ + k] = -s32 * u32[j];
   }
   row_k[k] = s32;
+  SQFC_ASSERT(g_[k * capacity_ + k] == s32);
   max_abs_ = std::max({static_cast<std::int64_t>(largest), max_u, std::int64_t{1}});
 
   energy_ += s * (sum_u - 1) * (sum_u - 1);

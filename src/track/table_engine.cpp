@@ -116,6 +116,7 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
   auto commit = [&](unsigned w, Natural) {
     Worker& worker = *workers[w];
     for (const BlockSummary& s : worker.summaries) {
+      SQFC_ASSERT(s.lo == state.n() + 1);  // summaries arrive in order, without gaps
       ++report.blocks;
       const auto next_sample = options.samples.next_at_or_after(s.lo);
       const bool has_sample = next_sample && *next_sample < s.hi;

@@ -12,10 +12,12 @@
 namespace sqfc::oracles {
 namespace {
 
-// 8 MB of PARI stack is far more than factoring one 64-bit integer needs; the small prime
-// table (primes below 2^16) keeps start-up quick, PARI switches to its own factoring methods
-// (rho, SQUFOF, ECM, MPQS) above it.
-constexpr std::size_t pari_stack_bytes = std::size_t{8} << 20;
+// 256 MB of PARI stack: far more than factoring one 64-bit integer needs, and room for the
+// determinant of a 0/1 matrix of 1214 rows (H_2000; measured to need more than 64 MB). The stack
+// is reserved address space, touched only as it is used.
+// The small prime table (primes below 2^16) keeps start-up quick, PARI switches to its own
+// factoring methods (rho, SQUFOF, ECM, MPQS) above it.
+constexpr std::size_t pari_stack_bytes = std::size_t{256} << 20;
 constexpr unsigned long pari_max_prime = 1UL << 16;
 
 std::once_flag init_flag;
@@ -96,6 +98,32 @@ bool pari_is_prime(std::uint64_t n) {
 std::uint64_t pari_prime_count(std::uint64_t x) {
   ensure_pari();
   return with_stack([x] { return static_cast<std::uint64_t>(itou(primepi(to_pari(x)))); });
+}
+
+std::string pari_determinant(const std::vector<std::int64_t>& entries, std::size_t dimension) {
+  if (entries.size() != dimension * dimension)
+    throw std::invalid_argument("pari_determinant: " + std::to_string(entries.size()) + " entries for a " +
+                                std::to_string(dimension) + " x " + std::to_string(dimension) + " matrix");
+  ensure_pari();
+  return with_stack([&] {
+    // A PARI matrix is a vector of columns: column j holds entries (i, j) for i = 1..dimension.
+    const long d = static_cast<long>(dimension);
+    GEN matrix = cgetg(d + 1, t_MAT);
+    for (long j = 1; j <= d; ++j) {
+      GEN column = cgetg(d + 1, t_COL);
+      for (long i = 1; i <= d; ++i) {
+        const long v = static_cast<long>(entries[static_cast<std::size_t>((i - 1) * d + (j - 1))]);
+        // 0, 1 and -1 point at PARI's constant integers (not on the stack): a 0/1 matrix then
+        // costs one word per entry.
+        gel(column, i) = v == 0 ? gen_0 : v == 1 ? gen_1 : v == -1 ? gen_m1 : stoi(v);
+      }
+      gel(matrix, j) = column;
+    }
+    char* text = GENtostr(det(matrix));
+    std::string result(text);
+    pari_free(text);
+    return result;
+  });
 }
 
 }  // namespace sqfc::oracles

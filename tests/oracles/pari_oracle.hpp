@@ -1,12 +1,14 @@
 // SPDX-License-Identifier: MIT
 // PARI/GP (libpari) as a reference library for tests: arithmetic functions, factorisations,
-// primality and prime counts of 64-bit integers.
+// primality and prime counts of 64-bit integers, and determinants of integer matrices.
 //
 // Only plain C++ types cross this header: PARI and FLINT both define `ulong`, so pari.h is
 // included by pari_oracle.cpp alone and no test translation unit ever sees it.
 #pragma once
 
+#include <cstddef>
 #include <cstdint>
+#include <string>
 #include <utility>
 #include <vector>
 
@@ -38,5 +40,12 @@ bool pari_is_prime(std::uint64_t n);
 
 /// PARI's primepi(x): the number of primes p <= x. Thread-safety: as above.
 std::uint64_t pari_prime_count(std::uint64_t x);
+
+/// PARI's matdet (det) of the dimension x dimension integer matrix whose row-major entries are
+/// given, as a decimal string ("1" for the 0 x 0 matrix).
+/// Pre: entries.size() == dimension^2 (checked; std::invalid_argument); the matrix and PARI's
+/// work on it fit the PARI stack (256 MiB: enough for the 0/1 matrices of H_2000 and G_2000,
+/// 1214 x 1214). Thread-safety: as above.
+std::string pari_determinant(const std::vector<std::int64_t>& entries, std::size_t dimension);
 
 }  // namespace sqfc::oracles

@@ -46,6 +46,9 @@ class BorderedGreen {
   [[nodiscard]] Count negative_pivots() const noexcept { return negative_; }
   /// Histogram, extremes and energy of all entries. Complexity: O(size^2 log distinct).
   [[nodiscard]] GreenStatistics statistics(Natural n) const;
+  /// Throws InvalidArgument (naming the estimate in bytes and MiB, and --method closed) when
+  /// `capacity` vertices need more than `memory_limit_bytes`. Complexity: O(1).
+  static void check_memory(std::size_t capacity, std::uint64_t memory_limit_bytes);
   /// Bytes needed for `capacity` vertices.
   static std::uint64_t bytes_for(std::size_t capacity) noexcept { return 4ULL * capacity * capacity; }
 

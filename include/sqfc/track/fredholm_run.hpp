@@ -28,6 +28,9 @@ struct FredholmRunOptions {
   FredholmMethod method = FredholmMethod::bordered;
   bool green_stats = false;        ///< histogram, extremes and distinct values at each sample
   bool cross_check = false;        ///< bordered: compare every entry with the closed form at each sample
+  bool flint_checks = false;       ///< bordered: FLINT determinants, certified inverse, zeta identity (n <= 2000)
+  bool spectrum = false;           ///< LAPACK eigenvalue signs at samples n <= 5000
+  bool divisibility = false;       ///< exploratory det(1 + A(G_n)) at samples n <= 2000
   unsigned threads = 1;
   std::uint64_t memory_limit = std::uint64_t{4} << 30;  ///< bytes the bordered matrix may take
   /// When set, called at this sample n with the vertices and an accessor entry(i, j) of g_n
@@ -51,6 +54,11 @@ struct FredholmRow {
   Count negative_eigenvalues = 0;
   bool has_inertia = false;
   Count even_faces = 0, odd_faces = 0;  ///< faces of even / odd dimension of K_n
+  std::optional<std::string> flint_fredholm;  ///< det(1 + A(H_n)) by FLINT elimination (flint_checks)
+  bool has_spectrum = false;                  ///< LAPACK signs below (spectrum)
+  Count spectrum_positive = 0, spectrum_negative = 0;
+  double spectrum_margin = 0;                 ///< smallest |eigenvalue| minus the error bound
+  std::optional<std::string> div_fredholm;    ///< det(1 + A(G_n)), exploratory (divisibility)
   std::string checks;  ///< checks made at this row, "name" when passed, "name:FAIL" otherwise, ';'-separated
 };
 
@@ -77,5 +85,10 @@ struct FredholmRunReport {
 /// Complexity: bordered O(V^3 / threads) time, 4 V^2 bytes; closed O(to log log to) tables of
 /// 12 bytes per integer plus O(to polylog to) per sample point.
 FredholmRunReport run_fredholm(const FredholmRunOptions& options, FredholmSink& sink, const ProgressFn& progress = {});
+
+/// Checks the preconditions of run_fredholm (range, memory of the bordered matrix) without
+/// running, so a caller can refuse before writing anything. Throws: InvalidArgument.
+/// Complexity: O(to log log to) for the bordered method (counts the vertices), O(1) otherwise.
+void check_fredholm_options(const FredholmRunOptions& options);
 
 }  // namespace sqfc::track
