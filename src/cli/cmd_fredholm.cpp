@@ -211,7 +211,9 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   }
   if (!report.all_checks_passed()) {
     for (const auto& c : report.checks)
-      if (c.failed) std::cerr << "sqfc fredholm: check " << c.name << " failed " << c.failed << " times, first at n = " << c.first_failure << "\n";
+      if (c.failed)
+        std::cerr << "sqfc fredholm: check " << c.name << " failed " << c.failed << " times, first at n = " << c.first_failure
+                  << (c.first_failure_detail.empty() ? "" : " (" + c.first_failure_detail + ")") << "\n";
     return exit_code::check_failed;
   }
   return exit_code::ok;

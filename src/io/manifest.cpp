@@ -57,6 +57,7 @@ Json checks_to_json(const std::vector<track::CheckOutcome>& checks) {
     item.set("passed", c.passed);
     item.set("failed", c.failed);
     item.set("first_failure_n", c.first_failure == 0 ? Json(nullptr) : Json(c.first_failure));
+    if (!c.first_failure_detail.empty()) item.set("first_failure", c.first_failure_detail);
     list.push(std::move(item));
   }
   return list;

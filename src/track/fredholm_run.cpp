@@ -21,11 +21,12 @@ namespace {
 class Tally {
  public:
   std::size_t add(std::string name, std::string statement) {
-    outcomes.push_back({std::move(name), std::move(statement), 0, 0, 0});
+    outcomes.push_back({std::move(name), std::move(statement), 0, 0, 0, {}});
     return outcomes.size() - 1;
   }
-  void record(std::size_t i, bool ok, Natural n, std::string* row_checks = nullptr) {
+  void record(std::size_t i, bool ok, Natural n, std::string* row_checks = nullptr, const std::string& detail = {}) {
     auto& o = outcomes[i];
+    if (!ok && o.failed == 0) o.first_failure_detail = detail;
     if (row_checks) {
       if (!row_checks->empty()) *row_checks += ';';
       *row_checks += o.name + (ok ? "" : ":FAIL");
@@ -131,13 +132,19 @@ FredholmRunReport run_fredholm(const FredholmRunOptions& options, FredholmSink& 
       if (options.green_stats) row.stats = green->statistics(n);
       if (options.cross_check) {
         bool all_equal = true;
+        std::string mismatch;
         for (std::size_t i = 0; i < next_vertex && all_equal; ++i)
-          for (std::size_t j = 0; j < next_vertex; ++j)
-            if (green->entry(i, j) != tables.entry_at(n, vertices[i], vertices[j])) {
+          for (std::size_t j = 0; j < next_vertex; ++j) {
+            const auto expected_entry = tables.entry_at(n, vertices[i], vertices[j]);
+            if (green->entry(i, j) != expected_entry) {
               all_equal = false;
+              mismatch = "n = " + std::to_string(n) + ", x = " + std::to_string(vertices[i]) + ", y = " +
+                         std::to_string(vertices[j]) + ": bordered " + std::to_string(green->entry(i, j)) +
+                         ", closed form " + std::to_string(expected_entry);
               break;
             }
-        tally.record(closed, all_equal, n, &row.checks);
+          }
+        tally.record(closed, all_equal, n, &row.checks, mismatch);
       }
     } else {
       // No matrix: the determinant is the product formula itself, so it is not checked here.

@@ -30,10 +30,10 @@ struct Worker {
 class RowChecks {
  public:
   RowChecks() {
-    outcomes_.push_back({"euler_poincare", "sum_d (-1)^d b_d = 1 - M(n) (Euler-Poincare with Bjorner 2011 Betti numbers)", 0, 0, 0});
-    outcomes_.push_back({"face_euler", "sum_d (-1)^d f_d = 1 - M(n) (Euler characteristic, design.md identity 1)", 0, 0, 0});
-    outcomes_.push_back({"fredholm_parity", "prod -mu(k) = (-1)^((Q(n)+M(n))/2 - 1) (unimodularity, design.md identity 3)", 0, 0, 0});
-    outcomes_.push_back({"block_rescan", "per-n rescan of a block ends in the state its summary gives", 0, 0, 0});
+    outcomes_.push_back({"euler_poincare", "sum_d (-1)^d b_d = 1 - M(n) (Euler-Poincare with Bjorner 2011 Betti numbers)", 0, 0, 0, {}});
+    outcomes_.push_back({"face_euler", "sum_d (-1)^d f_d = 1 - M(n) (Euler characteristic, design.md identity 1)", 0, 0, 0, {}});
+    outcomes_.push_back({"fredholm_parity", "prod -mu(k) = (-1)^((Q(n)+M(n))/2 - 1) (unimodularity, design.md identity 3)", 0, 0, 0, {}});
+    outcomes_.push_back({"block_rescan", "per-n rescan of a block ends in the state its summary gives", 0, 0, 0, {}});
   }
   void check_row(const TableRow& r) {
     SignedSum betti_sum = 0, face_sum = 0;

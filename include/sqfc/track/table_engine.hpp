@@ -42,6 +42,7 @@ struct CheckOutcome {
   Count passed = 0;
   Count failed = 0;
   Natural first_failure = 0;  ///< n of the first failure, 0 when none
+  std::string first_failure_detail;  ///< what differed at the first failure, when the check says
 };
 
 /// What a finished run reports besides its rows and events.
