@@ -6,7 +6,9 @@
 #include <iostream>
 
 #include "cli_support.hpp"
+#include "cmd_check.hpp"
 #include "cmd_demo.hpp"
+#include "cmd_face.hpp"
 #include "cmd_fredholm.hpp"
 #include "cmd_table.hpp"
 #include "sqfc/core/error.hpp"
@@ -35,6 +37,10 @@ int main(int argc, char** argv) {
   sqfc::cli::add_demo_command(app, demo_args);
   sqfc::cli::FredholmArguments fredholm_args;
   sqfc::cli::add_fredholm_command(app, fredholm_args);
+  sqfc::cli::CheckArguments check_args;
+  sqfc::cli::add_check_command(app, check_args);
+  sqfc::cli::FaceArguments face_args;
+  sqfc::cli::add_face_command(app, face_args);
 
   std::string command = "sqfc";
   sqfc::cli::install_interrupt_handlers();
@@ -44,7 +50,7 @@ int main(int argc, char** argv) {
     bool known = false;
     for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, fredholm, demo; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, fredholm, face, check, demo; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }
@@ -63,6 +69,8 @@ int main(int argc, char** argv) {
     if (app.got_subcommand("table")) return sqfc::cli::run_table_command(table_args, invocation);
     if (app.got_subcommand("demo")) return sqfc::cli::run_demo_command(demo_args, invocation);
     if (app.got_subcommand("fredholm")) return sqfc::cli::run_fredholm_command(fredholm_args, invocation);
+    if (app.got_subcommand("check")) return sqfc::cli::run_check_command(check_args, invocation);
+    if (app.got_subcommand("face")) return sqfc::cli::run_face_command(face_args, invocation);
     std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
     return sqfc::exit_code::bad_input;
   } catch (const sqfc::Error& e) {

@@ -16,36 +16,7 @@
 #include "sqfc/linalg/green_closed_form.hpp"
 
 namespace sqfc::track {
-namespace {
-
-class Tally {
- public:
-  std::size_t add(std::string name, std::string statement) {
-    outcomes.push_back({std::move(name), std::move(statement), 0, 0, 0, {}});
-    return outcomes.size() - 1;
-  }
-  void record(std::size_t i, bool ok, Natural n, std::string* row_checks = nullptr, const std::string& detail = {}) {
-    auto& o = outcomes[i];
-    if (!ok && o.failed == 0) o.first_failure_detail = detail;
-    if (row_checks) {
-      if (!row_checks->empty()) *row_checks += ';';
-      *row_checks += o.name + (ok ? "" : ":FAIL");
-    }
-    if (ok) {
-      ++o.passed;
-    } else {
-      if (o.failed == 0) o.first_failure = n;
-      ++o.failed;
-    }
-  }
-  std::vector<CheckOutcome> outcomes;
-};
-
-}  // namespace
-
-bool FredholmRunReport::all_checks_passed() const {
-  return std::all_of(checks.begin(), checks.end(), [](const CheckOutcome& c) { return c.failed == 0; });
-}
+bool FredholmRunReport::all_checks_passed() const { return all_passed(checks); }
 
 void check_fredholm_options(const FredholmRunOptions& options) {
   if (options.to < 1) throw InvalidArgument("--to must be at least 1");
@@ -62,7 +33,7 @@ void check_fredholm_options(const FredholmRunOptions& options) {
 
 FredholmRunReport run_fredholm(const FredholmRunOptions& options, FredholmSink& sink, const ProgressFn& progress) {
   check_fredholm_options(options);
-  Tally tally;
+  CheckTally tally;
   const auto schur = tally.add("schur_sign", "s = 1 - a^T g a equals -mu(k) at every vertex (design.md identity 3; mu by FLINT factoring)");
   const auto determinant = tally.add("fredholm_parity", "det(1 + A(H_n)) = prod -mu(k) = (-1)^((Q+M)/2 - 1) (unimodularity, published 2016)");
   const auto energy = tally.add("energy", "sum of all Green entries = 1 - M(n) (energy theorem, published 2017/2019)");
@@ -193,7 +164,7 @@ FredholmRunReport run_fredholm(const FredholmRunOptions& options, FredholmSink& 
     sink.on_row(row);
     if (progress) progress(n, options.to);
   }
-  report.checks = std::move(tally.outcomes);
+  report.checks = tally.take();
   // Drop checks that did not apply to this method, so the manifest lists what really ran.
   std::erase_if(report.checks, [](const CheckOutcome& c) { return c.passed == 0 && c.failed == 0; });
   return report;

@@ -30,10 +30,10 @@ struct Worker {
 class RowChecks {
  public:
   RowChecks() {
-    outcomes_.push_back({"euler_poincare", "sum_d (-1)^d b_d = 1 - M(n) (Euler-Poincare with Bjorner 2011 Betti numbers)", 0, 0, 0, {}});
-    outcomes_.push_back({"face_euler", "sum_d (-1)^d f_d = 1 - M(n) (Euler characteristic, design.md identity 1)", 0, 0, 0, {}});
-    outcomes_.push_back({"fredholm_parity", "prod -mu(k) = (-1)^((Q(n)+M(n))/2 - 1) (unimodularity, design.md identity 3)", 0, 0, 0, {}});
-    outcomes_.push_back({"block_rescan", "per-n rescan of a block ends in the state its summary gives", 0, 0, 0, {}});
+    tally_.add("euler_poincare", "sum_d (-1)^d b_d = 1 - M(n) (Euler-Poincare with Bjorner 2011 Betti numbers)");
+    tally_.add("face_euler", "sum_d (-1)^d f_d = 1 - M(n) (Euler characteristic, design.md identity 1)");
+    tally_.add("fredholm_parity", "prod -mu(k) = (-1)^((Q(n)+M(n))/2 - 1) (unimodularity, design.md identity 3)");
+    tally_.add("block_rescan", "per-n rescan of a block ends in the state its summary gives");
   }
   void check_row(const TableRow& r) {
     SignedSum betti_sum = 0, face_sum = 0;
@@ -42,33 +42,22 @@ class RowChecks {
       betti_sum += sign * r.betti[d];
       face_sum += sign * static_cast<SignedSum>(r.faces[d]);
     }
-    record(0, betti_sum == r.euler, r.n);
-    record(1, face_sum == r.euler, r.n);
+    tally_.record(0, betti_sum == r.euler, r.n);
+    tally_.record(1, face_sum == r.euler, r.n);
     const SignedSum exponent = (static_cast<SignedSum>(r.squarefree) + r.mertens) / 2 - 1;
     const int expected = (exponent % 2 == 0) ? 1 : -1;
-    record(2, expected == r.fredholm, r.n);
+    tally_.record(2, expected == r.fredholm, r.n);
   }
-  void check_rescan(bool ok, Natural n) { record(3, ok, n); }
-  std::vector<CheckOutcome> take() { return std::move(outcomes_); }
+  void check_rescan(bool ok, Natural n) { tally_.record(3, ok, n); }
+  std::vector<CheckOutcome> take() { return tally_.take(); }
 
  private:
-  void record(std::size_t i, bool ok, Natural n) {
-    auto& o = outcomes_[i];
-    if (ok) {
-      ++o.passed;
-    } else {
-      if (o.failed == 0) o.first_failure = n;
-      ++o.failed;
-    }
-  }
-  std::vector<CheckOutcome> outcomes_;
+  CheckTally tally_;
 };
 
 }  // namespace
 
-bool TableRunReport::all_checks_passed() const {
-  return std::all_of(checks.begin(), checks.end(), [](const CheckOutcome& c) { return c.failed == 0; });
-}
+bool TableRunReport::all_checks_passed() const { return all_passed(checks); }
 
 TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const ProgressFn& progress) {
   if (options.to < 1 || options.to > config::max_sieve_n)

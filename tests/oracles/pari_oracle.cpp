@@ -90,6 +90,25 @@ std::vector<std::pair<std::uint64_t, int>> pari_factor(std::uint64_t n) {
   });
 }
 
+std::vector<std::pair<std::string, int>> pari_factor_decimal(const std::string& decimal) {
+  if (decimal.empty() || decimal.find_first_not_of("0123456789") != std::string::npos)
+    throw std::invalid_argument("pari_factor_decimal: '" + decimal + "' is not decimal digits");
+  if (decimal.find_first_not_of('0') == std::string::npos)
+    throw std::invalid_argument("pari_factor_decimal: n must be at least 1");
+  ensure_pari();
+  return with_stack([&] {
+    GEN n = strtoi(decimal.c_str());
+    std::vector<std::pair<std::string, int>> result;
+    GEN f = Z_factor(n);
+    GEN primes = gel(f, 1);
+    GEN exponents = gel(f, 2);
+    const long rows = lg(primes) - 1;
+    for (long i = 1; i <= rows; ++i)
+      result.emplace_back(std::string(itostr(gel(primes, i))), static_cast<int>(itos(gel(exponents, i))));
+    return result;
+  });
+}
+
 bool pari_is_prime(std::uint64_t n) {
   ensure_pari();
   return with_stack([n] { return isprime(to_pari(n)) != 0; });

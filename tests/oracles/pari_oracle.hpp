@@ -35,6 +35,12 @@ std::vector<PariArithmetic> pari_arithmetic_range(std::uint64_t lo, std::uint64_
 /// Pre: n >= 1 (checked; std::invalid_argument). Thread-safety: as pari_arithmetic.
 std::vector<std::pair<std::uint64_t, int>> pari_factor(std::uint64_t n);
 
+/// PARI's factor(n) for an integer of any size given in decimal digits: (prime in decimal,
+/// exponent) pairs in increasing prime order; empty for n = 1.
+/// Pre: @p decimal is non-empty digits with value >= 1 (checked; std::invalid_argument).
+/// Thread-safety: as pari_arithmetic.
+std::vector<std::pair<std::string, int>> pari_factor_decimal(const std::string& decimal);
+
 /// PARI's isprime(n): a proven answer (BPSW is a proof below 2^64). Thread-safety: as above.
 bool pari_is_prime(std::uint64_t n);
 

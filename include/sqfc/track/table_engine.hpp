@@ -9,6 +9,7 @@
 
 #include "sqfc/core/config.hpp"
 #include "sqfc/core/types.hpp"
+#include "sqfc/track/check_tally.hpp"
 #include "sqfc/track/events.hpp"
 #include "sqfc/track/sample_schedule.hpp"
 #include "sqfc/track/tracker_state.hpp"
@@ -35,15 +36,6 @@ class TableSink {
   virtual void on_event(const Event& event) = 0;
 };
 
-/// Outcome of one identity checked during the run.
-struct CheckOutcome {
-  std::string name;         ///< stable identifier, e.g. "euler_poincare"
-  std::string statement;    ///< what is checked, with its source
-  Count passed = 0;
-  Count failed = 0;
-  Natural first_failure = 0;  ///< n of the first failure, 0 when none
-  std::string first_failure_detail;  ///< what differed at the first failure, when the check says
-};
 
 /// What a finished run reports besides its rows and events.
 struct TableRunReport {
