@@ -8,8 +8,10 @@
 #include "cli_support.hpp"
 #include "cmd_check.hpp"
 #include "cmd_demo.hpp"
+#include "cmd_complex.hpp"
 #include "cmd_face.hpp"
 #include "cmd_fredholm.hpp"
+#include "cmd_homology.hpp"
 #include "cmd_table.hpp"
 #include "sqfc/core/error.hpp"
 #include "sqfc/core/version.hpp"
@@ -41,6 +43,10 @@ int main(int argc, char** argv) {
   sqfc::cli::add_check_command(app, check_args);
   sqfc::cli::FaceArguments face_args;
   sqfc::cli::add_face_command(app, face_args);
+  sqfc::cli::ComplexArguments complex_args;
+  sqfc::cli::add_complex_command(app, complex_args);
+  sqfc::cli::HomologyArguments homology_args;
+  sqfc::cli::add_homology_command(app, homology_args);
 
   std::string command = "sqfc";
   sqfc::cli::install_interrupt_handlers();
@@ -50,7 +56,7 @@ int main(int argc, char** argv) {
     bool known = false;
     for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, fredholm, face, check, demo; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, fredholm, homology, face, complex, check, demo; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }
@@ -71,6 +77,8 @@ int main(int argc, char** argv) {
     if (app.got_subcommand("fredholm")) return sqfc::cli::run_fredholm_command(fredholm_args, invocation);
     if (app.got_subcommand("check")) return sqfc::cli::run_check_command(check_args, invocation);
     if (app.got_subcommand("face")) return sqfc::cli::run_face_command(face_args, invocation);
+    if (app.got_subcommand("complex")) return sqfc::cli::run_complex_command(complex_args, invocation);
+    if (app.got_subcommand("homology")) return sqfc::cli::run_homology_command(homology_args, invocation);
     std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
     return sqfc::exit_code::bad_input;
   } catch (const sqfc::Error& e) {

@@ -162,11 +162,13 @@ inline int wait_for_child(pid_t pid, int terminal_fd, std::string& terminal_text
 
 }  // namespace detail
 
-/// Runs `sqfc args...` with working directory `dir.work()`, stdin from /dev/null, and returns what it did.
+/// Runs `program args...` (an absolute path; no PATH search) with working directory `dir.work()`,
+/// stdin from /dev/null, and returns what it did; exit code 127 when the program cannot be executed.
 /// Throws std::runtime_error when the process cannot be started at all.
-inline RunResult run_sqfc(const ScratchDir& dir, const std::vector<std::string>& args, const RunOptions& options = {}) {
+inline RunResult run_program(const ScratchDir& dir, const std::string& program, const std::vector<std::string>& args,
+                             const RunOptions& options = {}) {
   RunResult result;
-  result.argv.push_back(binary_path());
+  result.argv.push_back(program);
   result.argv.insert(result.argv.end(), args.begin(), args.end());
   std::vector<char*> c_argv;
   for (auto& a : result.argv) c_argv.push_back(a.data());
@@ -209,6 +211,12 @@ inline RunResult run_sqfc(const ScratchDir& dir, const std::vector<std::string>&
   result.out = detail::read_whole_file(out_path);
   result.err = options.stderr_terminal ? terminal_text : detail::read_whole_file(err_path);
   return result;
+}
+
+/// Runs `sqfc args...` with working directory `dir.work()`, stdin from /dev/null, and returns what it did.
+/// Throws std::runtime_error when the process cannot be started at all.
+inline RunResult run_sqfc(const ScratchDir& dir, const std::vector<std::string>& args, const RunOptions& options = {}) {
+  return run_program(dir, binary_path(), args, options);
 }
 
 /// A readable summary of a run for assertion messages.
