@@ -10,6 +10,7 @@
 #include "sqfc/core/number_parse.hpp"
 #include "sqfc/io/atomic_file.hpp"
 #include "sqfc/io/manifest.hpp"
+#include "sqfc/topology/clique_complex.hpp"
 #include "sqfc/topology/persistence.hpp"
 #include "sqfc/track/check_tally.hpp"
 #include "sqfc/track/sample_schedule.hpp"
@@ -85,6 +86,13 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
     formula = tally.add("betti_formula", "Betti numbers from the barcode = odd squarefree counts in (n/2, n] (Bjorner 2011, design.md identity 2)");
     bars_check = tally.add("bars_m_2m", "every finite bar is [m, 2m) for odd squarefree m, in dimension omega(m) - 1");
     expected = topology::betti_by_formula(points, top);
+    if (n_max <= 200) {
+      // The clique complex of G_N (barycentric refinement) must have K_N's Betti numbers.
+      const auto clique_check = tally.add("clique_complex", "the clique complex of the divisibility graph G_N has the Betti numbers of K_N (N <= 200)");
+      auto clique = topology::divisibility_clique_complex_betti(n_max);
+      clique.resize(static_cast<std::size_t>(top + 1), 0);
+      tally.record(clique_check, clique == topology::betti_from_bars(result.bars, n_max, top), n_max);
+    }
     const auto bad = topology::first_bar_not_m_2m(result.bars, n_max);
     tally.record(bars_check, !bad, bad ? bad->birth : 0, nullptr,
                  bad ? "bar of dimension " + std::to_string(bad->dimension) + " [" + std::to_string(bad->birth) + ", " +

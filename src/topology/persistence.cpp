@@ -53,6 +53,10 @@ bool accepted(const FaceFamily& family, Natural k, const std::uint32_t* primes, 
 }  // namespace
 
 PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field) {
+  return compute_persistence(n, family, field, ReductionOrder::twist);
+}
+
+PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field, ReductionOrder order) {
   if (n < 1 || n > 200'000'000ULL)
     throw InvalidArgument("homology is limited to 1 <= n <= 2*10^8, got " + std::to_string(n));
   if (field != 2 && field != 3) throw InvalidArgument("homology coefficients must be Z/2 or Z/3");
@@ -104,44 +108,65 @@ PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsig
     ++result.column_additions;
   };
 
-  for (int d = result.top_dimension; d >= 0; --d) {
-    for (const auto k : faces[static_cast<std::size_t>(d)]) {
-      if (cleared[k]) {
-        ++result.cleared_columns;
-        continue;
+  // Reduces the column of face k (dimension d); returns true when it ends nonzero (k is
+  // negative and pairs with its pivot).
+  const auto reduce = [&](std::uint32_t k, int d) {
+    // Boundary: k / p_i with sign (-1)^i, sorted by face (k / p_i decreases with i).
+    column.clear();
+    if (d > 0) {
+      const int w = squarefree_primes(spf, k, primes);
+      for (int i = w - 1; i >= 0; --i) {
+        const std::uint8_t sign = (i % 2 == 0) ? 1 : static_cast<std::uint8_t>(p - 1);
+        column.push_back({static_cast<std::uint32_t>(k / primes[i]), sign});
       }
-      // Boundary: k / p_i with sign (-1)^i, sorted by face (k / p_i decreases with i).
-      column.clear();
-      if (d > 0) {
-        const int w = squarefree_primes(spf, k, primes);
-        for (int i = w - 1; i >= 0; --i) {
-          const std::uint8_t sign = (i % 2 == 0) ? 1 : static_cast<std::uint8_t>(p - 1);
-          column.push_back({static_cast<std::uint32_t>(k / primes[i]), sign});
-        }
-      }
-      // Reduce: cancel the pivot against the stored column that owns it, while one does.
-      // Each addition removes the current pivot and leaves only smaller faces, so the loop
-      // ends after at most as many steps as there are faces below k.
-      while (!column.empty()) {
-        const Entry low = column.back();
-        const std::uint32_t owner = pivot_of[low.face];
-        if (owner == 0) break;
-        const Entry owner_low = pool[pool_start[owner] - 1];
-        // factor = -low / owner_low (mod p); inverses mod 3: 1 -> 1, 2 -> 2.
-        const std::uint8_t factor = static_cast<std::uint8_t>((p - (low.coefficient * owner_low.coefficient) % p) % p);
-        add_scaled(owner - 1, factor);
-      }
-      if (column.empty()) {
-        result.bars.push_back({d, k, 0});  // positive and never killed: essential
-        continue;
-      }
-      const std::uint32_t low = column.back().face;
-      pool.insert(pool.end(), column.begin(), column.end());
-      pool_start.push_back(pool.size());
-      pivot_of[low] = static_cast<std::uint32_t>(pool_start.size() - 1);
-      cleared[low] = true;
-      result.bars.push_back({d - 1, low, k});
     }
+    // Cancel the pivot against the stored column that owns it, while one does. Each addition
+    // removes the current pivot and leaves only smaller faces, so the loop ends after at most as
+    // many steps as there are faces below k.
+    while (!column.empty()) {
+      const Entry low = column.back();
+      const std::uint32_t owner = pivot_of[low.face];
+      if (owner == 0) break;
+      const Entry owner_low = pool[pool_start[owner] - 1];
+      // factor = -low / owner_low (mod p); inverses mod 3: 1 -> 1, 2 -> 2.
+      const std::uint8_t factor = static_cast<std::uint8_t>((p - (low.coefficient * owner_low.coefficient) % p) % p);
+      add_scaled(owner - 1, factor);
+    }
+    if (column.empty()) return false;
+    const std::uint32_t low = column.back().face;
+    pool.insert(pool.end(), column.begin(), column.end());
+    pool_start.push_back(pool.size());
+    pivot_of[low] = static_cast<std::uint32_t>(pool_start.size() - 1);
+    cleared[low] = true;
+    result.bars.push_back({d - 1, low, k});
+    return true;
+  };
+
+  if (order == ReductionOrder::twist) {
+    for (int d = result.top_dimension; d >= 0; --d) {
+      for (const auto k : faces[static_cast<std::size_t>(d)]) {
+        if (cleared[k]) {
+          ++result.cleared_columns;
+          continue;
+        }
+        // With the dimension above done, a positive face that is not a pivot never dies.
+        if (!reduce(k, d)) result.bars.push_back({d, k, 0});
+      }
+    }
+  } else {
+    // Filtration order over all dimensions; births are known to be essential only at the end.
+    std::vector<std::pair<std::uint32_t, int>> positive;
+    std::vector<std::size_t> cursor(faces.size(), 0);
+    for (Natural k = 2; k <= n; ++k) {
+      const int w = squarefree_primes(spf, k, primes);
+      if (w <= 0) continue;
+      const auto d = static_cast<std::size_t>(w - 1);
+      if (d >= faces.size() || cursor[d] >= faces[d].size() || faces[d][cursor[d]] != k) continue;
+      ++cursor[d];
+      if (!reduce(static_cast<std::uint32_t>(k), w - 1)) positive.emplace_back(static_cast<std::uint32_t>(k), w - 1);
+    }
+    for (const auto& [k, d] : positive)
+      if (!cleared[k]) result.bars.push_back({d, k, 0});
   }
   std::sort(result.bars.begin(), result.bars.end());
   return result;

@@ -153,3 +153,23 @@ TEST(Persistence, Preconditions) {
 }
 
 }  // namespace
+
+namespace {
+
+TEST(Persistence, StandardAndTwistOrdersGiveTheSameBars) {
+  int checked = 0;
+  for (const Natural n : {1ULL, 2ULL, 30ULL, 1000ULL, 20000ULL})
+    for (const unsigned field : {2U, 3U}) {
+      const auto twist = sqfc::topology::compute_persistence(n, {}, field, sqfc::topology::ReductionOrder::twist);
+      const auto standard = sqfc::topology::compute_persistence(n, {}, field, sqfc::topology::ReductionOrder::standard);
+      EXPECT_EQ(twist.bars, standard.bars) << "n = " << n << " field " << field;
+      EXPECT_EQ(standard.cleared_columns, 0U);
+      ++checked;
+    }
+  const FaceFamily family{Natural{13}, Natural{3}, std::nullopt};
+  EXPECT_EQ(sqfc::topology::compute_persistence(1000, family, 2, sqfc::topology::ReductionOrder::twist).bars,
+            sqfc::topology::compute_persistence(1000, family, 2, sqfc::topology::ReductionOrder::standard).bars);
+  EXPECT_EQ(checked, 10);
+}
+
+}  // namespace

@@ -50,6 +50,14 @@ struct PersistenceResult {
 /// column additions (few per face for K_n).
 PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field = 2);
 
+/// Column order of the reduction. Both give the same bars; tests/bench/bench_homology measures them.
+enum class ReductionOrder {
+  twist,     ///< dimensions from the top down, clearing pivots of the dimension above (the default)
+  standard,  ///< all columns in filtration order, no clearing
+};
+/// compute_persistence with an explicit column order (the dispatcher uses twist).
+PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field, ReductionOrder order);
+
 /// b_d at m from the bars: the bars of dimension d with birth <= m < death (or no death).
 /// Pre: bars as compute_persistence returns them. Complexity: O(|bars|).
 std::vector<Count> betti_from_bars(const std::vector<Bar>& bars, Natural m, int top_dimension);
