@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 // Longer FLINT-against-PARI factoring runs: 128-bit random integers and 200-bit products of
 // primes of up to 50 bits (the default suite runs a few of each with smaller primes).
+// Expected values: PARI's factor (reference library, tests/oracles/pari_oracle.hpp) and, for the
+// products, the primes the test multiplied together.
 #include <gtest/gtest.h>
 
 #include "big_factor_test_support.hpp"

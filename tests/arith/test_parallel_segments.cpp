@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 // Tests of for_each_segment_ordered: coverage, ordered and serialized commits, one segment in
 // flight per worker, real parallelism, and propagation of the first exception.
+// Expected values: the segment partition of [lo, hi) recomputed in each test by plain arithmetic
+// (common practice); no outside data.
 #include "sqfc/arith/parallel_segments.hpp"
 
 #include <gtest/gtest.h>

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 // Slow tests of linalg/spectrum: eigenvalue signs of 1 + A(H_n) = even/odd face counts
 // (design.md identity 5; published 2017) with a verified margin, at n = 1500, 2000, ..., 5000.
+// Expected values: the even/odd-dimensional face counts from the independent squarefree
+// enumeration oracle (tests/oracles/squarefree_enumeration.hpp); the eigenvalues come from LAPACK.
 #include "sqfc/linalg/spectrum.hpp"
 
 #include <gtest/gtest.h>
