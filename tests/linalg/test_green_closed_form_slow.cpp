@@ -2,7 +2,8 @@
 // Slow tests of linalg/green_closed_form: the closed form (design.md identity 6) against the
 // bordered inverse entry by entry for every n <= 2000 (issue 4), and the statistics at every n <= 2000.
 // Expected values: the bordered inverse, an independent exact route to g_n; the counts 1214 and
-// the sum of V^2 are Q(2000) - 1 = 1214 (OEIS A071172 via Q) and plain arithmetic.
+// 1214 is the number of squarefree k in [2, 2000] (Q(2000) - 1, the same count other tests take
+// from trial division); the entry total is the sum of V^2 over V = 1..1214 (common practice).
 #include "sqfc/linalg/green_closed_form.hpp"
 
 #include <gtest/gtest.h>
