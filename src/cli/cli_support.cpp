@@ -11,6 +11,8 @@
 
 #include "sqfc/core/error.hpp"
 #include "sqfc/core/number_parse.hpp"
+#include "sqfc/io/atomic_file.hpp"
+#include "sqfc/io/manifest.hpp"
 
 namespace sqfc::cli {
 namespace {
@@ -34,6 +36,27 @@ Natural parse_number_option(const std::string& text, const std::string& option, 
     throw InvalidArgument(option + " " + text + " is outside the supported range [" + std::to_string(min) + ", " +
                           std::to_string(max) + "]");
   return value;
+}
+
+SampleRequest parse_sample_request(const std::optional<std::string>& every, const std::optional<std::string>& at,
+                                   const std::optional<std::string>& log, Natural limit, const std::string& limit_text) {
+  SampleRequest request;
+  if (every) request.every = parse_number_option(*every, "--every", 1, limit);
+  if (at)
+    for (const auto v : parse_natural_list(*at, "--at")) {
+      if (v < 1 || v > limit) throw InvalidArgument("--at: " + std::to_string(v) + " is outside [1, " + limit_text + "]");
+      request.at.push_back(v);
+    }
+  if (log) request.per_decade = static_cast<unsigned>(parse_number_option(*log, "--log", 1, 1000));
+  if (!every && !at && !log) request.per_decade = 10;
+  return request;
+}
+
+std::string default_output_path(const std::string& command, const Invocation& invocation, Natural n,
+                                const std::string& file) {
+  const std::string dir = "data_out/" + command + "/" + io::utc_compact_timestamp(invocation.started) + "-to" + std::to_string(n);
+  io::ensure_directory(dir);
+  return dir + "/" + file;
 }
 
 unsigned default_thread_count() {

@@ -134,9 +134,7 @@ int run_complex_command(const ComplexArguments& a, const Invocation& invocation)
     parameters.set("max_bytes", max_bytes);
     parameters.set("force", a.force);
     m.set("parameters", std::move(parameters));
-    m.set("started_utc", io::utc_timestamp(started));
-    m.set("finished_utc", io::utc_timestamp(std::chrono::system_clock::now()));
-    m.set("wall_seconds", seconds);
+    io::set_run_times(m, started, seconds);
     io::Json outputs;
     outputs.set("export", out);
     m.set("outputs", std::move(outputs));

@@ -95,24 +95,14 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   track::FredholmRunOptions options;
   options.to = parse_number_option(a.to, "--to", 1, 200'000'000ULL);
   const Natural n_max = options.to;
-  std::optional<Natural> every;
-  std::vector<Natural> at;
-  std::optional<unsigned> per_decade;
-  if (a.every) every = parse_number_option(*a.every, "--every", 1, n_max);
-  if (a.at)
-    for (const auto v : parse_natural_list(*a.at, "--at")) {
-      if (v < 1 || v > n_max) throw InvalidArgument("--at: " + std::to_string(v) + " is outside [1, --to]");
-      at.push_back(v);
-    }
-  if (a.log) per_decade = static_cast<unsigned>(parse_number_option(*a.log, "--log", 1, 1000));
-  if (!a.every && !a.at && !a.log) per_decade = 10;
+  SampleRequest sampling = parse_sample_request(a.every, a.at, a.log, n_max, "--to");
   std::optional<Natural> dump_n;
   if (a.dump_n) {
     dump_n = parse_number_option(*a.dump_n, "--dump-green", 1, n_max);
     if (a.dump_file->empty()) throw InvalidArgument("--dump-green: empty file name");
-    at.push_back(*dump_n);
+    sampling.at.push_back(*dump_n);
   }
-  options.samples = track::SampleSchedule(1, n_max, every, at, per_decade, per_decade.has_value());
+  options.samples = sampling.schedule(1, n_max);
   if (options.samples.empty()) throw InvalidArgument("no sample point of --every/--at lies in [1, --to " + a.to + "]");
   if (a.method && *a.method != "bordered" && *a.method != "closed" && *a.method != "flint")
     throw InvalidArgument("--method: unknown method '" + *a.method + "' (use bordered, closed or flint)");
@@ -137,9 +127,7 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   if (a.out) {
     out_path = *a.out;
   } else {
-    const std::string dir = "data_out/fredholm/" + io::utc_compact_timestamp(invocation.started) + "-to" + std::to_string(n_max);
-    io::ensure_directory(dir);
-    out_path = dir + "/fredholm.csv";
+    out_path = default_output_path("fredholm", invocation, n_max, "fredholm.csv");
   }
   const auto started = std::chrono::system_clock::now();
   const auto clock_start = std::chrono::steady_clock::now();
@@ -194,9 +182,7 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
     parameters.set("threads", options.threads);
     parameters.set("memory_limit", options.memory_limit);
     m.set("parameters", std::move(parameters));
-    m.set("started_utc", io::utc_timestamp(started));
-    m.set("finished_utc", io::utc_timestamp(std::chrono::system_clock::now()));
-    m.set("wall_seconds", wall);
+    io::set_run_times(m, started, wall);
     m.set("threads", options.threads);
     io::Json outputs;
     outputs.set("table", out_path);

@@ -34,18 +34,7 @@ void add_homology_command(CLI::App& app, HomologyArguments& a) {
 
 int run_homology_command(const HomologyArguments& a, const Invocation& invocation) {
   const Natural n_max = parse_number_option(a.to, "--to", 1, 200'000'000ULL);
-  std::optional<Natural> every;
-  std::vector<Natural> at;
-  std::optional<unsigned> per_decade;
-  if (a.every) every = parse_number_option(*a.every, "--every", 1, n_max);
-  if (a.at)
-    for (const auto v : parse_natural_list(*a.at, "--at")) {
-      if (v < 1 || v > n_max) throw InvalidArgument("--at: " + std::to_string(v) + " is outside [1, --to]");
-      at.push_back(v);
-    }
-  if (a.log) per_decade = static_cast<unsigned>(parse_number_option(*a.log, "--log", 1, 1000));
-  if (!a.every && !a.at && !a.log) per_decade = 10;
-  const track::SampleSchedule samples(1, n_max, every, at, per_decade, per_decade.has_value());
+  const track::SampleSchedule samples = parse_sample_request(a.every, a.at, a.log, n_max, "--to").schedule(1, n_max);
   topology::FaceFamily family;
   if (a.smooth) family.smooth_bound = parse_number_option(*a.smooth, "--smooth", 2, n_max);
   if (a.coprime_to) family.coprime_to = parse_number_option(*a.coprime_to, "--coprime-to", 1, ~0ULL);
@@ -58,9 +47,7 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
   if (a.out) {
     out_path = *a.out;
   } else {
-    const std::string dir = "data_out/homology/" + io::utc_compact_timestamp(invocation.started) + "-to" + std::to_string(n_max);
-    io::ensure_directory(dir);
-    out_path = dir + "/homology.csv";
+    out_path = default_output_path("homology", invocation, n_max, "homology.csv");
   }
   const auto started = std::chrono::system_clock::now();
   const auto clock_start = std::chrono::steady_clock::now();
@@ -134,9 +121,7 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
     parameters.set("max_dim", family.max_dimension ? io::Json(*family.max_dimension) : io::Json(nullptr));
     parameters.set("sample_points", static_cast<std::uint64_t>(points.size()));
     m.set("parameters", std::move(parameters));
-    m.set("started_utc", io::utc_timestamp(started));
-    m.set("finished_utc", io::utc_timestamp(std::chrono::system_clock::now()));
-    m.set("wall_seconds", wall);
+    io::set_run_times(m, started, wall);
     io::Json stats;
     stats.set("bars", static_cast<std::uint64_t>(result.bars.size()));
     stats.set("column_additions", result.column_additions);

@@ -94,20 +94,7 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
     run.block_size = static_cast<std::size_t>(parse_number_option(*a.block_size, "--block-size", 1024, 1 << 24));
   run.segment_size = std::max<Natural>(config::default_segment_size, run.block_size);
 
-  std::optional<Natural> every;
-  std::vector<Natural> at;
-  std::optional<unsigned> per_decade;
-  if (a.every) every = parse_number_option(*a.every, "--every", 1, config::max_sieve_n);
-  if (a.at) {
-    for (const auto v : parse_natural_list(*a.at, "--at")) {
-      if (v < 1 || v > config::max_sieve_n) throw InvalidArgument("--at: " + std::to_string(v) + " is outside [1, 10^16]");
-      at.push_back(v);
-    }
-  }
-  if (a.log) per_decade = static_cast<unsigned>(parse_number_option(*a.log, "--log", 1, 1000));
-  const bool default_sampling = !a.every && !a.at && !a.log;
-  if (default_sampling) per_decade = 10;
-  run.samples = track::SampleSchedule(run.from, run.to, every, at, per_decade, per_decade.has_value());
+  run.samples = parse_sample_request(a.every, a.at, a.log, config::max_sieve_n, "10^16").schedule(run.from, run.to);
   if (run.samples.empty())
   {
     std::string asked;
@@ -128,9 +115,7 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
   if (a.out && a.out->empty()) throw InvalidArgument("--out: empty path (use - for standard output)");
   if (a.events && a.events->empty()) throw InvalidArgument("--events: empty path (use - for standard output)");
   if (!a.out) {
-    const std::string dir = "data_out/table/" + io::utc_compact_timestamp(invocation.started) + "-to" + std::to_string(run.to);
-    io::ensure_directory(dir);
-    job.out = dir + "/table." + std::string(io::table_format_extension(job.format));
+    job.out = default_output_path("table", invocation, run.to, "table." + std::string(io::table_format_extension(job.format)));
   } else {
     job.out = *a.out;
   }
@@ -190,9 +175,7 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
     parameters.set("segment_size", job.run.segment_size);
     parameters.set("events", job.run.events);
     m.set("parameters", std::move(parameters));
-    m.set("started_utc", io::utc_timestamp(started));
-    m.set("finished_utc", io::utc_timestamp(std::chrono::system_clock::now()));
-    m.set("wall_seconds", result.wall_seconds);
+    io::set_run_times(m, started, result.wall_seconds);
     m.set("threads", job.run.threads);
     io::Json outputs;
     outputs.set("table", job.out);

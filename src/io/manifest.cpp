@@ -83,6 +83,12 @@ Json row_to_json(const track::TableRow& r, int top_dimension) {
   return o;
 }
 
+void set_run_times(Json& manifest, std::chrono::system_clock::time_point started, double wall_seconds) {
+  manifest.set("started_utc", utc_timestamp(started));
+  manifest.set("finished_utc", utc_timestamp(std::chrono::system_clock::now()));
+  manifest.set("wall_seconds", wall_seconds);
+}
+
 void write_manifest(const std::string& path, const Json& manifest) {
   AtomicOutputFile file(path);
   file.stream() << manifest.dump(2) << '\n';

@@ -64,6 +64,8 @@ FredholmRunReport run_fredholm(const FredholmRunOptions& options, FredholmSink& 
   Count edges = 0;
   FredholmRunReport report;
 
+  // The next sample point, looked up once per sample rather than once per n.
+  auto sample = options.samples.next_at_or_after(1);
   for (Natural n = 1; n <= options.to; ++n) {
     const int mu_n = tables.mu(n);
     mertens += mu_n;
@@ -79,7 +81,6 @@ FredholmRunReport run_fredholm(const FredholmRunOptions& options, FredholmSink& 
       }
       ++next_vertex;
     }
-    const auto sample = options.samples.next_at_or_after(n);
     if (!sample || *sample != n) {
       if (progress && (n & 0xFFF) == 0) progress(n, options.to);
       continue;
@@ -162,6 +163,7 @@ FredholmRunReport run_fredholm(const FredholmRunOptions& options, FredholmSink& 
     }
     ++report.rows;
     sink.on_row(row);
+    sample = options.samples.next_at_or_after(n + 1);
     if (progress) progress(n, options.to);
   }
   report.checks = tally.take();

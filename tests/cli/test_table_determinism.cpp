@@ -4,46 +4,10 @@
 // suite; test_table_determinism_slow.cpp runs the same comparisons on larger ranges.
 #include <gtest/gtest.h>
 
-#include "cli_runner.hpp"
+#include "determinism_support.hpp"
 
 namespace sqfc::cli_test {
 namespace {
-
-struct Outputs {
-  std::string table, events;
-};
-
-// Runs `sqfc table args... --out t.csv --events e.csv` and returns both files.
-Outputs run_table(const std::vector<std::string>& args) {
-  ScratchDir dir;
-  auto full = args;
-  full.insert(full.begin(), "table");
-  full.insert(full.end(), {"--out", "t.csv", "--events", "e.csv", "--quiet"});
-  const auto r = run_sqfc(dir, full);
-  EXPECT_EQ(r.exit_code, 0) << describe(r);
-  EXPECT_EQ(r.err, "") << describe(r);
-  return {read_file(dir.path("t.csv")), read_file(dir.path("e.csv"))};
-}
-
-std::vector<std::string> rows_from(const std::string& table, unsigned long long from) {
-  const auto lines = split_lines(table);
-  std::vector<std::string> kept;
-  if (lines.empty()) return kept;
-  kept.push_back(lines[0]);
-  for (std::size_t i = 1; i < lines.size(); ++i)
-    if (std::stoull(split_fields(lines[i])[0]) >= from) kept.push_back(lines[i]);
-  return kept;
-}
-
-std::vector<std::string> events_from(const std::string& events, unsigned long long from) {
-  const auto lines = split_lines(events);
-  std::vector<std::string> kept;
-  if (lines.empty()) return kept;
-  kept.push_back(lines[0]);
-  for (std::size_t i = 1; i < lines.size(); ++i)
-    if (std::stoull(split_fields(lines[i]).at(1)) >= from) kept.push_back(lines[i]);
-  return kept;
-}
 
 TEST(TableDeterminism, ThreadCountDoesNotChangeABit) {
   // 5 * 10^6 spans two work segments of 2^22 values (config.hpp, default_segment_size), so two

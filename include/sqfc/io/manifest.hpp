@@ -26,6 +26,9 @@ Json checks_to_json(const std::vector<track::CheckOutcome>& checks);
 /// The final row of a run (every column) as a JSON object.
 Json row_to_json(const track::TableRow& row, int top_dimension);
 
+/// Sets started_utc, finished_utc (now) and wall_seconds, the times every manifest records.
+void set_run_times(Json& manifest, std::chrono::system_clock::time_point started, double wall_seconds);
+
 /// Writes @p manifest to @p path atomically. Throws: IoError.
 void write_manifest(const std::string& path, const Json& manifest);
 
