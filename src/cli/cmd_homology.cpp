@@ -126,6 +126,10 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
     stats.set("bars", static_cast<std::uint64_t>(result.bars.size()));
     stats.set("column_additions", result.column_additions);
     stats.set("cleared_columns", result.cleared_columns);
+    stats.set("apparent_pairs", result.apparent_pairs);
+    stats.set("method", result.method == topology::ReductionOrder::apparent_pairs
+                            ? "apparent pairs, remaining columns reduced by apparent columns"
+                            : "twist order with clearing");
     m.set("reduction", std::move(stats));
     m.set("formula_checks", full ? "on" : "off: the family is not K_n, so identity 2 does not apply");
     m.set("checks", io::checks_to_json(checks));

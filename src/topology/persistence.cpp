@@ -5,12 +5,14 @@
 #include <algorithm>
 #include <numeric>
 #include <string>
+#include <thread>
 
 #include "sqfc/arith/base_primes.hpp"
 #include "sqfc/arith/sieve.hpp"
 #include "sqfc/core/checked.hpp"
 #include "sqfc/core/error.hpp"
 #include "sqfc/topology/betti_counting.hpp"
+#include "apparent_pairs.hpp"
 
 namespace sqfc::topology {
 namespace {
@@ -53,15 +55,21 @@ bool accepted(const FaceFamily& family, Natural k, const std::uint32_t* primes, 
 }  // namespace
 
 PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field) {
-  return compute_persistence(n, family, field, ReductionOrder::twist);
+  return compute_persistence(n, family, field, ReductionOrder::apparent_pairs, 0);
 }
 
-PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field, ReductionOrder order) {
+PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field, ReductionOrder order,
+                                      unsigned threads) {
   if (n < 1 || n > 200'000'000ULL)
     throw InvalidArgument("homology is limited to 1 <= n <= 2*10^8, got " + std::to_string(n));
   if (field != 2 && field != 3) throw InvalidArgument("homology coefficients must be Z/2 or Z/3");
   if (family.coprime_to && *family.coprime_to == 0) throw InvalidArgument("--coprime-to must be at least 1");
   if (family.max_dimension && *family.max_dimension < 0) throw InvalidArgument("--max-dim must be at least 0");
+  if (order == ReductionOrder::apparent_pairs) {
+    if (threads == 0) threads = std::max(1u, std::thread::hardware_concurrency());
+    if (auto result = detail::persistence_by_apparent_pairs(n, family, field, threads)) return std::move(*result);
+    order = ReductionOrder::twist;
+  }
   const auto p = static_cast<std::uint8_t>(field);
   const auto spf = smallest_prime_factors(n);
 
@@ -76,6 +84,7 @@ PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsig
   }
 
   PersistenceResult result;
+  result.method = order;
   result.top_dimension = static_cast<int>(faces.size()) - 1;
   for (const auto& list : faces) result.faces_by_dimension.push_back(list.size());
 

@@ -30,33 +30,50 @@ struct Bar {
   friend auto operator<=>(const Bar&, const Bar&) = default;
 };
 
+/// Column order of the reduction. All give the same bars; tests compare them and
+/// tests/bench/bench_homology measures them.
+enum class ReductionOrder {
+  /// The default. In every family here the smallest allowed prime q0 is a cone point: for a face
+  /// k with q0 dividing k, its youngest facet is k/q0 and the oldest coface of k/q0 is k, so
+  /// (k/q0, k) is an apparent pair (U. Bauer, "Ripser: efficient computation of Vietoris-Rips
+  /// persistence barcodes", J. Appl. Comput. Topol. 5 (2021)) and is a persistence pair without
+  /// any reduction. Both conditions are read off the face's primes, in one segmented, threaded
+  /// pass with the sieve. Every other column (a face k with q0 not dividing k whose coface k*q0
+  /// is missing) is reduced by adding apparent columns; when a pivot is met that no apparent column
+  /// owns, the whole computation falls back to `twist` (never for the families of FaceFamily, but
+  /// nothing assumes it). Bars come out in order, so no sort is needed.
+  apparent_pairs,
+  twist,     ///< dimensions from the top down, clearing pivots of the dimension above
+  standard,  ///< all columns in filtration order, no clearing
+};
+
 /// Result of one reduction.
 struct PersistenceResult {
   std::vector<Bar> bars;            ///< sorted by (dimension, birth, death)
   std::vector<Count> faces_by_dimension;
   Count column_additions = 0;       ///< column operations the reduction needed
-  Count cleared_columns = 0;        ///< columns skipped by clearing
+  Count cleared_columns = 0;        ///< columns skipped by clearing (apparent births included)
+  Count apparent_pairs = 0;         ///< pairs found without reduction (apparent_pairs only)
   int top_dimension = -1;
+  ReductionOrder method = ReductionOrder::twist;  ///< the order that produced the bars
 };
 
-/// Persistence of the family's filtration on [2, n] over the prime field Z/p (p = 2 or 3), by the
-/// standard column reduction in twist order (dimensions from the top down) with clearing: a
-/// face that is the pivot of a column one dimension up is positive and its column is skipped.
-/// Faces are identified by their integer, so a column's pivot (its latest-entering boundary face)
-/// is its largest entry. Nothing about the expected pairing is assumed.
+/// Persistence of the family's filtration on [2, n] over the prime field Z/p (p = 2 or 3), by
+/// apparent pairs with the twist reduction as fallback (see ReductionOrder), on all hardware
+/// threads. Faces are identified by their integer, so a column's pivot (its latest-entering
+/// boundary face) is its largest entry. Nothing about the expected pairing is assumed.
 /// Pre: 1 <= n <= 2*10^8 (checked; InvalidArgument); p in {2, 3} (checked).
-/// Complexity: O(n) words of tables (4 bytes per integer for the pivot index, 1 bit for clearing,
-/// 4 for the smallest prime factor) plus the stored reduced columns; time dominated by the
-/// column additions (few per face for K_n).
+/// Complexity (apparent_pairs): O(n log log n) time for the sieve passes plus a few column
+/// additions per face k > n/q0 with q0 not dividing k; memory the bars (24 bytes each) plus
+/// O(threads * 2^16) for the segments. twist and standard: O(n) words of tables (4 bytes per
+/// integer for the pivot index, 1 bit for clearing, 4 for the smallest prime factor) plus the
+/// stored reduced columns.
 PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field = 2);
 
-/// Column order of the reduction. Both give the same bars; tests/bench/bench_homology measures them.
-enum class ReductionOrder {
-  twist,     ///< dimensions from the top down, clearing pivots of the dimension above (the default)
-  standard,  ///< all columns in filtration order, no clearing
-};
-/// compute_persistence with an explicit column order (the dispatcher uses twist).
-PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field, ReductionOrder order);
+/// compute_persistence with an explicit column order; `threads` is used by apparent_pairs only
+/// (0 means all hardware threads). The result does not depend on the thread count.
+PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field, ReductionOrder order,
+                                      unsigned threads = 1);
 
 /// b_d at m from the bars: the bars of dimension d with birth <= m < death (or no death).
 /// Pre: bars as compute_persistence returns them. Complexity: O(|bars|).
