@@ -8,6 +8,9 @@
 #include <bit>
 #include <memory>
 #include <numeric>
+#include <thread>
+
+#include <sys/mman.h>
 
 #include "sqfc/arith/base_primes.hpp"
 #include "sqfc/arith/parallel_segments.hpp"
@@ -22,7 +25,10 @@ constexpr Natural segment_size = Natural{1} << 16;
 constexpr int max_primes = 8;
 // A candidate's boundary lives on the divisors of k*q0: at most 9 primes, so masks < 2^9.
 constexpr std::size_t mask_space = std::size_t{1} << (max_primes + 1);
-constexpr std::uint32_t essential_flag = 0x80000000u;  // births are <= 2*10^8 < 2^31
+// A birth is stored as 4 bytes until the bars are written once: essential_flag is set for a
+// class that never dies, otherwise it dies at birth * q0. Births are <= 2*10^8 < 2^31.
+constexpr std::uint32_t essential_flag = 0x80000000u;
+using SegmentBirths = std::array<std::vector<std::uint32_t>, config::omega_slots>;
 
 // The smallest prime a face of the family may contain, or 0 when no prime <= n is allowed.
 Natural smallest_allowed_prime(Natural n, const FaceFamily& family) {
@@ -40,9 +46,8 @@ struct Worker {
   std::vector<arith::FactorCode> codes;
   std::vector<std::uint8_t> prime_count;    // distinct sieved primes found per k of the segment
   std::vector<std::uint16_t> small_primes;  // max_primes slots per k (base primes < 2^16)
-  // Births per dimension in increasing order, essential_flag set for a class that never dies
-  // (otherwise it dies at birth * q0); 4 bytes per bar until the bars are written once.
-  std::vector<std::vector<std::uint32_t>> births_by_dimension;
+  // This segment's births per dimension in increasing order (storage owned by the segment).
+  std::vector<std::uint32_t>* births_by_dimension = nullptr;
   std::array<Count, config::omega_slots> faces_by_dimension{};
   Count column_additions = 0, apparent_pairs = 0, cleared_columns = 0;
   // Column of the candidate being reduced: coefficient and value per divisor mask of k*q0.
@@ -61,7 +66,6 @@ class ApparentPairReduction {
 
   // Classifies every face of [lo, hi), reduces the candidates, and fills the worker's bars.
   void run_segment(Worker& w, Natural lo, Natural hi) {
-    for (auto& list : w.births_by_dimension) list.clear();
     w.faces_by_dimension.fill(0);
     w.column_additions = w.apparent_pairs = w.cleared_columns = 0;
     w.sieve->reset(lo, hi);
@@ -222,6 +226,61 @@ class ApparentPairReduction {
   }
 };
 
+// Writes the bars, dimension by dimension and segment by segment (so in (dimension, birth)
+// order), into `bars`; the threads fill disjoint ranges. The buffer asks for huge pages: at
+// 10^8 it holds about 1 GB, and 4 KiB first-touch faults would cost more than the filling.
+void write_bars(std::vector<SegmentBirths>& births, std::size_t dimensions, Natural q0, unsigned threads,
+                std::vector<Bar>& bars) {
+  struct Chunk {
+    int dimension;
+    const std::vector<std::uint32_t>* births;
+    std::size_t offset;
+  };
+  std::vector<Chunk> chunks;
+  std::size_t total = 0;
+  for (std::size_t d = 0; d < dimensions; ++d)
+    for (auto& segment : births)
+      if (!segment[d].empty()) {
+        chunks.push_back({static_cast<int>(d), &segment[d], total});
+        total += segment[d].size();
+      }
+  bars.reserve(total);
+#ifdef MADV_HUGEPAGE
+  if (total * sizeof(Bar) >= (std::size_t{4} << 20)) {
+    constexpr std::uintptr_t huge = std::uintptr_t{2} << 20;
+    const auto begin = (reinterpret_cast<std::uintptr_t>(bars.data()) + huge - 1) & ~(huge - 1);
+    const auto end = (reinterpret_cast<std::uintptr_t>(bars.data() + total)) & ~(huge - 1);
+    if (end > begin) madvise(reinterpret_cast<void*>(begin), end - begin, MADV_HUGEPAGE);  // a hint only
+  }
+#endif
+  bars.resize(total);
+  const auto fill = [&](std::size_t first_chunk, std::size_t last_chunk) {
+    for (std::size_t c = first_chunk; c < last_chunk; ++c) {
+      Bar* out = bars.data() + chunks[c].offset;
+      for (const auto entry : *chunks[c].births) {
+        const Natural birth = entry & ~essential_flag;
+        *out++ = {chunks[c].dimension, birth, (entry & essential_flag) ? 0 : birth * q0};
+      }
+    }
+  };
+  const std::size_t parts = std::min<std::size_t>(threads, chunks.size());
+  if (parts <= 1) {
+    fill(0, chunks.size());
+  } else {
+    std::vector<std::thread> pool;
+    std::size_t first = 0;
+    for (std::size_t t = 1; t <= parts; ++t) {
+      std::size_t last = first;  // chunks whose start lies below the t-th share of the bars
+      while (last < chunks.size() && (t == parts || chunks[last].offset < total / parts * t)) ++last;
+      pool.emplace_back(fill, first, last);
+      first = last;
+    }
+    for (auto& thread : pool) thread.join();
+  }
+  for (auto& segment : births)
+    for (auto& list : segment) std::vector<std::uint32_t>().swap(list);
+}
+
 }  // namespace
 
 std::optional<PersistenceResult> persistence_by_apparent_pairs(Natural n, const FaceFamily& family, unsigned field,
@@ -240,50 +299,35 @@ std::optional<PersistenceResult> persistence_by_apparent_pairs(Natural n, const 
     w.codes.resize(segment_size);
     w.prime_count.resize(segment_size);
     w.small_primes.resize(segment_size * max_primes);
-    w.births_by_dimension.resize(config::omega_slots);
     w.touched.reserve(mask_space);
   }
-  std::vector<std::vector<std::uint32_t>> births_by_dimension(config::omega_slots);
+  const std::size_t segments = static_cast<std::size_t>((n - 1) / segment_size + 1);
+  std::vector<SegmentBirths> births(segments);
   std::array<Count, config::omega_slots> faces{};
   std::atomic<bool> failed{false};
 
   arith::for_each_segment_ordered(
       1, n + 1, segment_size, threads,
-      [&](unsigned worker, Natural, Natural lo, Natural hi) {
+      [&](unsigned worker, Natural segment, Natural lo, Natural hi) {
         if (failed.load(std::memory_order_relaxed)) return;
+        workers[worker].births_by_dimension = births[static_cast<std::size_t>(segment)].data();
         reduction.run_segment(workers[worker], lo, hi);
         if (workers[worker].failed) failed.store(true);
       },
       [&](unsigned worker, Natural) {
         const Worker& w = workers[worker];
         if (failed.load()) return;
-        for (std::size_t d = 0; d < births_by_dimension.size(); ++d) {
-          births_by_dimension[d].insert(births_by_dimension[d].end(), w.births_by_dimension[d].begin(),
-                                        w.births_by_dimension[d].end());
-          faces[d] += w.faces_by_dimension[d];
-        }
+        for (std::size_t d = 0; d < faces.size(); ++d) faces[d] += w.faces_by_dimension[d];
         result.column_additions += w.column_additions;
         result.apparent_pairs += w.apparent_pairs;
         result.cleared_columns += w.cleared_columns;
       });
   if (failed.load()) return std::nullopt;
 
-  std::size_t total = 0;
-  for (std::size_t d = 0; d < faces.size(); ++d) {
-    if (faces[d] == 0) break;  // divisor-closed: every dimension below a face's has faces
+  for (std::size_t d = 0; d < faces.size() && faces[d] != 0; ++d)  // divisor-closed: no gaps
     result.faces_by_dimension.push_back(faces[d]);
-    total += births_by_dimension[d].size();
-  }
   result.top_dimension = static_cast<int>(result.faces_by_dimension.size()) - 1;
-  result.bars.reserve(total);
-  for (std::size_t d = 0; d < result.faces_by_dimension.size(); ++d) {
-    const int dim = static_cast<int>(d);
-    for (const auto entry : births_by_dimension[d]) {
-      const Natural birth = entry & ~essential_flag;
-      result.bars.push_back({dim, birth, (entry & essential_flag) ? 0 : birth * q0});
-    }
-    std::vector<std::uint32_t>().swap(births_by_dimension[d]);
-  }
+  write_bars(births, result.faces_by_dimension.size(), q0, threads, result.bars);
   return result;
 }
 
