@@ -8,6 +8,8 @@
 // hash of the sorted bars; at the GUDHI size both sides also send every bar and the parent
 // compares them exactly.
 //
+// The default order (apparent pairs) is timed at every size; the general twist and standard
+// reductions run once at the sizes up to --orders-to and must give the same bars.
 // Checks (exit 1 when one fails): at each sqfc size the faces number Q(n) - 1 (Q at powers of
 // ten: OEIS A071172), every face is either a bar end or an essential class (2 * finite +
 // essential = faces), every finite bar is [m, 2m) with m odd squarefree (design.md identity 2,
@@ -21,7 +23,9 @@
 //   --gudhi-to N  the size GUDHI runs at, 0 for none (default 1e6)
 //   --repeats R   sqfc repeats per size, minimum and median reported (default 3; GUDHI runs once)
 //   --out-dir DIR where homology_<date>.csv goes (default data_out/bench)
-//   --smoke       --to 1e4 --gudhi-to 1e4 --repeats 1 (the bench-smoke CTest entry)
+//   --orders-to N the general twist and standard reductions also run once at every size <= N
+//                 (default 1e7, 0 for none), same bars required
+//   --smoke       --to 1e4 --gudhi-to 1e4 --repeats 1 --orders-to 1e4 (the bench-smoke CTest entry)
 // Exit codes: 0 pass, 1 a wrong answer or a failed child, 2 bad usage, 3 a target missed.
 #include <sys/resource.h>
 #include <sys/utsname.h>
@@ -158,9 +162,11 @@ bool run_in_child(const std::function<void(Report&, std::vector<Bar>&)>& work, b
   return ok && WIFEXITED(status) && WEXITSTATUS(status) == 0;
 }
 
-void run_sqfc(Natural n, Report& r, std::vector<Bar>& bars) {
+void run_sqfc(Natural n, Report& r, std::vector<Bar>& bars,
+              sqfc::topology::ReductionOrder order = sqfc::topology::ReductionOrder::apparent_pairs) {
   const auto t0 = std::chrono::steady_clock::now();
-  auto result = sqfc::topology::compute_persistence(n, {}, 2);
+  auto result = sqfc::topology::compute_persistence(n, {}, 2, order, 0);
+  if (result.method != order) set_error(r, "the reduction fell back to another order");
   const auto t1 = std::chrono::steady_clock::now();
   r.seconds = std::chrono::duration<double>(t1 - t0).count();
   r.peak_kib = peak_kib_now();  // before the checks below, which allocate their own tables
@@ -285,6 +291,7 @@ std::string fixed(double v, int digits) {
 int main(int argc, char** argv) {
   std::vector<Natural> sizes{1'000'000, 10'000'000, 100'000'000};
   Natural gudhi_n = 1'000'000;
+  Natural orders_n = 10'000'000;
   unsigned repeats = 3;
   std::string out_dir = "data_out/bench";
   bool defaults = true;
@@ -299,7 +306,8 @@ int main(int argc, char** argv) {
       else if (arg == "--gudhi-to") gudhi_n = sqfc::parse_natural(value(), "--gudhi-to"), defaults = false;
       else if (arg == "--repeats") repeats = static_cast<unsigned>(sqfc::parse_natural(value(), "--repeats"));
       else if (arg == "--out-dir") out_dir = value();
-      else if (arg == "--smoke") sizes = {10'000}, gudhi_n = 10'000, repeats = 1, defaults = false;
+      else if (arg == "--orders-to") orders_n = sqfc::parse_natural(value(), "--orders-to");
+      else if (arg == "--smoke") sizes = {10'000}, gudhi_n = 10'000, orders_n = 10'000, repeats = 1, defaults = false;
       else throw sqfc::InvalidArgument("unknown argument " + arg);
     }
     if (repeats < 1 || repeats > 100) throw sqfc::InvalidArgument("--repeats must be in [1, 100]");
@@ -346,6 +354,33 @@ int main(int argc, char** argv) {
                 << report.peak_kib / 1024 << " MiB, " << report.faces << " faces, " << report.bars << " bars\n";
     }
     rows.push_back(row);
+  }
+
+  // (1b) The general reductions once at the smaller sizes: same bars, and how much slower.
+  struct OrderRow {
+    Natural n;
+    std::string order;
+    Report report;
+  };
+  std::vector<OrderRow> order_rows;
+  for (const auto& row : rows) {
+    if (row.n > orders_n || row.seconds.empty()) continue;
+    for (const auto& [name, order] : {std::pair{"twist", sqfc::topology::ReductionOrder::twist},
+                                      std::pair{"standard", sqfc::topology::ReductionOrder::standard}}) {
+      Report report;
+      const Natural n = row.n;
+      const auto how = order;
+      if (!run_in_child([n, how](Report& rep, std::vector<Bar>& b) { run_sqfc(n, rep, b, how); }, false, report, unused)) {
+        failures.push_back("sqfc " + std::string(name) + " n=" + std::to_string(n) + ": child failed");
+        continue;
+      }
+      if (report.error[0]) failures.push_back("sqfc " + std::string(name) + " n=" + std::to_string(n) + ": " + report.error);
+      if (report.hash != row.last.hash)
+        failures.push_back("sqfc " + std::string(name) + " n=" + std::to_string(n) + ": bars differ from apparent pairs");
+      std::cout << "bench_homology: sqfc " << name << " n=" << n << ": " << fixed(report.seconds, 3) << " s, peak "
+                << report.peak_kib / 1024 << " MiB\n";
+      order_rows.push_back({n, name, report});
+    }
   }
 
   // (2) GUDHI once at its size, with every bar sent back, and an untimed sqfc run for the bars.
@@ -446,6 +481,9 @@ int main(int argc, char** argv) {
         << fixed(min_of(r), 3) << "," << fixed(median(r.seconds), 3) << "," << mib(r.peak_kib) << ","
         << target << "," << v << "\n";
   }
+  for (const auto& o : order_rows)
+    out << "sqfc_" << o.order << "," << o.n << "," << o.report.faces << "," << o.report.bars << ",1,"
+        << fixed(o.report.seconds, 3) << "," << fixed(o.report.seconds, 3) << "," << mib(o.report.peak_kib) << ",,\n";
   if (gudhi_ran) {
     out << "gudhi," << gudhi_n << "," << gudhi.faces << "," << gudhi.bars << ",1," << fixed(gudhi.seconds, 3) << ","
         << fixed(gudhi.seconds, 3) << "," << mib(gudhi.peak_kib) << ",,\n";
@@ -460,6 +498,11 @@ int main(int argc, char** argv) {
       std::cout << "  sqfc  n=" << std::setw(10) << r.n << "  min " << std::setw(9) << fixed(min_of(r), 3)
                 << " s  median " << std::setw(9) << fixed(median(r.seconds), 3) << " s  peak " << std::setw(8)
                 << mib(r.peak_kib) << " MiB" << (verdict.count(r.n) ? "  " + verdict[r.n] : "") << "\n";
+  for (const auto& o : order_rows) {
+    const Row* r = row_of(o.n);
+    std::cout << "  sqfc  n=" << std::setw(10) << o.n << "  " << o.order << " order once " << fixed(o.report.seconds, 3)
+              << " s, " << fixed(r ? o.report.seconds / min_of(*r) : NAN, 1) << "x the apparent-pairs time\n";
+  }
   if (gudhi_ran) {
     std::cout << "  GUDHI n=" << std::setw(10) << gudhi_n << "      " << std::setw(9) << fixed(gudhi.seconds, 3)
               << " s                    peak " << std::setw(8) << mib(gudhi.peak_kib) << " MiB\n";
