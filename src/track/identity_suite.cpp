@@ -203,7 +203,9 @@ class ReferenceSieve {
 // Splits progress over stages of given weights.
 class StagedProgress {
  public:
-  StagedProgress(const ProgressFn& fn, std::vector<double> weights) : fn_(fn), weights_(std::move(weights)) {
+  // Progress is reported as a share of `scale` (the suite's --to), so a bar reads like the table's.
+  StagedProgress(const ProgressFn& fn, Natural scale, std::vector<double> weights)
+      : fn_(fn), scale_(scale), weights_(std::move(weights)) {
     for (double w : weights_) total_ += w;
   }
   void report(std::size_t stage, double fraction) {
@@ -211,11 +213,12 @@ class StagedProgress {
     double done = 0;
     for (std::size_t i = 0; i < stage && i < weights_.size(); ++i) done += weights_[i];
     if (stage < weights_.size()) done += weights_[stage] * std::clamp(fraction, 0.0, 1.0);
-    fn_(static_cast<Natural>(done * 1000.0 / total_), 1000);
+    fn_(static_cast<Natural>(done / total_ * static_cast<double>(scale_)), scale_);
   }
 
  private:
   const ProgressFn& fn_;
+  Natural scale_;
   std::vector<double> weights_;
   double total_ = 0;
 };
@@ -472,7 +475,7 @@ IdentitySuiteReport run_identity_suite(const IdentitySuiteOptions& options, cons
     return static_cast<CheckRecorder*>(nullptr);
   };
 
-  StagedProgress staged(progress, {1, 1, 1, 4, 6, 3, 1, 1});
+  StagedProgress staged(progress, N, {1, 1, 1, 4, 6, 3, 1, 1});
   const unsigned threads = options.threads;
   const int top = std::max(0, complex::max_face_dimension(N));
 
