@@ -25,6 +25,8 @@ void write_identity_report(std::ostream& out, const track::IdentitySuiteReport& 
   out << "range: n = 1.." << report.to << "\n";
   out << "identities: " << identity_list(report.identities) << "\n";
   out << "threads: " << threads << "\n";
+  if (report.corruption)
+    out << "injected fault (test only): " << report.corruption->check << " at n = " << report.corruption->n << "\n";
   int current = 0;
   Count passed = 0, failed = 0, skipped = 0;
   for (const auto& c : report.checks) {
@@ -75,6 +77,14 @@ Json identity_report_json(const track::IdentitySuiteReport& report) {
   for (int i : report.identities) ids.push(i);
   doc.set("identities", std::move(ids));
   doc.set("passed", report.passed());
+  if (report.corruption) {
+    Json fault;
+    fault.set("check", report.corruption->check);
+    fault.set("n", report.corruption->n);
+    doc.set("injected_fault", std::move(fault));
+  } else {
+    doc.set("injected_fault", nullptr);
+  }
   Json engine = Json::Array{};
   for (const auto& name : report.engine_checks_failed) engine.push(name);
   doc.set("engine_checks_failed", std::move(engine));

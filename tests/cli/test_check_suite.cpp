@@ -73,6 +73,7 @@ TEST(CheckSuite, InjectedFaultFailsEachIdentity) {
     EXPECT_TRUE(has_line(r.out, "  FAIL  " + name)) << r.out;
     EXPECT_TRUE(has_line(r.out, "    " + c.first_failure)) << c.fault << "\n" << r.out;
     EXPECT_TRUE(has_line(r.out, "verdict: FAIL")) << r.out;
+    EXPECT_TRUE(has_line(r.out, "injected fault (test only): " + name + " at n = " + c.fault.substr(c.fault.find(':') + 1))) << r.out;
     const std::string n = c.fault.substr(c.fault.find(':') + 1);
     EXPECT_EQ(r.err, "sqfc check: " + name + " failed at 1 n, first at n = " + n + "\n") << describe(r);
     // Only the corrupted check fails.
@@ -114,6 +115,9 @@ TEST(CheckSuite, JsonOutputAndManifest) {
   EXPECT_EQ(f.exit_code, 1) << describe(f);
   const json failed = json::parse(f.out);
   EXPECT_EQ(failed.at("passed"), false);
+  EXPECT_EQ(failed.at("injected_fault").at("check"), "liouville_formula");
+  EXPECT_EQ(failed.at("injected_fault").at("n"), 150);
+  EXPECT_TRUE(doc.at("injected_fault").is_null());
   bool found = false;
   for (const auto& c : failed.at("checks"))
     if (c.at("name") == "liouville_formula") {

@@ -84,6 +84,7 @@ struct IdentitySuiteReport {
   std::vector<int> identities;               ///< the identities run, increasing
   std::vector<IdentityCheckResult> checks;   ///< in identity order
   std::vector<std::string> engine_checks_failed;  ///< names of the table engine's own self-checks that failed
+  std::optional<IdentityCorruption> corruption;   ///< the test corruption of the run, if any (reports must say so)
   [[nodiscard]] bool passed() const noexcept;
 };
 
