@@ -4,6 +4,7 @@
 // first failure, the JSON output and its manifest, bad input, and the progress bar.
 #include <gtest/gtest.h>
 
+#include <csignal>
 #include <nlohmann/json.hpp>
 #include <regex>
 
@@ -155,6 +156,24 @@ TEST(CheckSuite, BadInputIsExitTwoWithOneLineAndNoOutput) {
     ++checked;
   }
   EXPECT_EQ(checked, 12);
+}
+
+TEST(CheckSuite, InterruptLeavesNoFile) {
+  // SIGINT once the JSON output is open (its *.part-* file exists): exit 130 by itself, one line,
+  // and neither the JSON nor its manifest nor a partial file is left.
+  ScratchDir dir;
+  RunOptions options;
+  options.signal_number = SIGINT;
+  options.signal_delay = std::chrono::milliseconds(100);
+  options.signal_after_partial_file = true;
+  options.timeout = std::chrono::seconds(60);
+  const auto r = run_sqfc(dir, {"check", "--to", "1e7", "--only", "7", "--threads", "2", "--out", "s.json"}, options);
+  EXPECT_FALSE(r.killed_by_signal) << describe(r);
+  EXPECT_EQ(r.exit_code, 128 + SIGINT) << describe(r);
+  EXPECT_EQ(split_lines(r.err).size(), 1u) << describe(r);
+  EXPECT_NE(r.err.find("interrupt"), std::string::npos) << describe(r);
+  EXPECT_EQ(r.out, "") << describe(r);
+  EXPECT_EQ(list_dir(dir.work()), std::vector<std::string>{}) << describe(r);
 }
 
 TEST(CheckSuite, ProgressOnlyOnATerminalAndNotQuiet) {
