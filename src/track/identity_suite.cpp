@@ -454,25 +454,19 @@ IdentitySuiteReport run_identity_suite(const IdentitySuiteOptions& options, cons
   }
   const IdentitySuiteBounds& b = options.bounds;
 
+  // One recorder per check of the selected identities, in the order of check_specs().
   std::vector<std::unique_ptr<CheckRecorder>> recorders;
-  std::vector<CheckRecorder*> by_name(check_specs().size(), nullptr);
-  auto recorder = [&](const char* name) -> CheckRecorder* {
+  std::vector<CheckRecorder*> by_spec(check_specs().size(), nullptr);
+  for (std::size_t i = 0; i < check_specs().size(); ++i)
+    if (selected(check_specs()[i].identity)) {
+      recorders.push_back(std::make_unique<CheckRecorder>(check_specs()[i], options.corruption));
+      by_spec[i] = recorders.back().get();
+    }
+  // The recorder of a check, or nullptr when its identity is not selected.
+  auto get = [&](std::string_view name) -> CheckRecorder* {
     for (std::size_t i = 0; i < check_specs().size(); ++i)
-      if (std::string_view(check_specs()[i].name) == name) {
-        if (!selected(check_specs()[i].identity)) return nullptr;
-        if (!by_name[i]) {
-          recorders.push_back(std::make_unique<CheckRecorder>(check_specs()[i], options.corruption));
-          by_name[i] = recorders.back().get();
-        }
-        return by_name[i];
-      }
-    throw InternalError(std::string("unknown identity check ") + name);
-  };
-  for (const auto& s : check_specs()) recorder(s.name);
-  auto get = [&](const char* name) {
-    for (std::size_t i = 0; i < check_specs().size(); ++i)
-      if (std::string_view(check_specs()[i].name) == name) return by_name[i];
-    return static_cast<CheckRecorder*>(nullptr);
+      if (name == check_specs()[i].name) return by_spec[i];
+    throw InternalError("unknown identity check " + std::string(name));
   };
 
   StagedProgress staged(progress, N, {1, 1, 1, 4, 6, 3, 1, 1});
