@@ -14,8 +14,8 @@
 namespace sqfc::track {
 
 /// Largest --to of the suite: 10^8. Memory is about 17 bytes per n (a reference sieve byte, M of
-/// the reference, M, Q and L of the engine), 1.7 GB at the top; the direct homology range
-/// (10^7 at most) and the matrix ranges stay as documented below.
+/// the reference, M, Q and L of the engine) plus the direct homology to 10^7 at most; measured
+/// peak 1.95 GB and 56 s at 10^8 on two cores (docs/algorithms/identity-suite.md).
 inline constexpr Natural max_identity_suite_n = 100'000'000ULL;
 
 /// The sub-ranges of the expensive checks (each is also cut to --to). Defaults keep
