@@ -449,8 +449,12 @@ IdentitySuiteReport run_identity_suite(const IdentitySuiteOptions& options, cons
   const auto selected = [&](int i) { return std::binary_search(identities.begin(), identities.end(), i); };
   if (options.corruption) {
     const auto& specs = check_specs();
-    if (std::none_of(specs.begin(), specs.end(), [&](const CheckSpec& s) { return options.corruption->check == s.name; }))
-      throw InvalidArgument("--inject-fault: unknown check '" + options.corruption->check + "'");
+    const auto spec = std::find_if(specs.begin(), specs.end(), [&](const CheckSpec& s) { return options.corruption->check == s.name; });
+    if (spec == specs.end()) throw InvalidArgument("--inject-fault: unknown check '" + options.corruption->check + "'");
+    // A fault in a check that does not run would let a mutation test pass for the wrong reason.
+    if (!selected(spec->identity))
+      throw InvalidArgument("--inject-fault: check '" + options.corruption->check + "' belongs to identity " +
+                            std::to_string(spec->identity) + ", which is not selected");
   }
   const IdentitySuiteBounds& b = options.bounds;
 

@@ -140,6 +140,7 @@ TEST(CheckSuite, BadInputIsExitTwoWithOneLineAndNoOutput) {
       {{"check", "--to", "100", "--only", "euler,"}, "--only: unknown identity ''"},
       {{"check", "--to", "100", "--inject-fault", "nothing:3"}, "--inject-fault: unknown check 'nothing'"},
       {{"check", "--to", "100", "--inject-fault", "euler_characteristic"}, "--inject-fault: expected CHECK:N"},
+      {{"check", "--to", "100", "--only", "2", "--inject-fault", "euler_characteristic:5"}, "which is not selected"},
       {{"check", "--to", "100", "--inject-fault", "euler_characteristic:x"}, "--inject-fault"},
       {{"check", "--to", "100", "--out", ""}, "--out: empty path"},
       {{"check", "--to", "100", "--out", "missing/dir/s.json"}, "missing/dir/s.json"},
@@ -155,7 +156,7 @@ TEST(CheckSuite, BadInputIsExitTwoWithOneLineAndNoOutput) {
     EXPECT_TRUE(list_dir(dir.work()).empty()) << describe(r);
     ++checked;
   }
-  EXPECT_EQ(checked, 12);
+  EXPECT_EQ(checked, 13);
 }
 
 TEST(CheckSuite, InterruptLeavesNoFile) {

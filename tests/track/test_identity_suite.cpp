@@ -185,6 +185,9 @@ TEST(IdentitySuite, BadOptionsAreRefused) {
   o.identities = {};
   o.corruption = IdentityCorruption{"no_such_check", 3};
   EXPECT_THROW(run_identity_suite(o), InvalidArgument);
+  o.identities = {1};
+  o.corruption = IdentityCorruption{"green_closed_form", 3};  // identity 6, not selected
+  EXPECT_THROW(run_identity_suite(o), InvalidArgument);
 }
 
 TEST(IdentitySuite, IdentityListParsing) {
