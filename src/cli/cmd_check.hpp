@@ -1,5 +1,5 @@
 // SPDX-License-Identifier: MIT
-// `sqfc check`: comparison of an OEIS b-file with sqfc's values (the identity suite is planned).
+// `sqfc check`: the identity suite, or the comparison of an OEIS b-file with sqfc's values.
 #pragma once
 
 #include <optional>
@@ -15,6 +15,7 @@ namespace sqfc::cli {
 
 struct CheckArguments {
   std::optional<std::string> bfile, sequence, to, threads;
+  std::optional<std::string> only, out, inject_fault;  // identity suite only
   bool quiet = false;
 };
 

@@ -235,7 +235,7 @@ TEST(CheckBfile, BadInputIsExitTwoWithOneLine) {
       {{"check", "--bfile", ".", "--sequence", "mertens"}, "is a directory"},
       {{"check", "--bfile", "ok.txt"}, "--bfile needs --sequence"},
       {{"check", "--sequence", "mertens"}, "--sequence needs --bfile"},
-      {{"check"}, "identity suite is not available yet"},
+      {{"check", "--bfile", "ok.txt", "--sequence", "mertens", "--only", "1"}, "--only applies to the identity suite"},
       {{"check", "--bfile", "ok.txt", "--sequence", "mertens", "--to", "0"}, "--to"},
       {{"check", "--bfile", "ok.txt", "--sequence", "mertens", "--to", "1e17"}, "--to"},
       {{"check", "--bfile", "ok.txt", "--sequence", "mertens", "--threads", "0"}, "--threads"},
