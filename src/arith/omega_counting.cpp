@@ -37,6 +37,9 @@ struct SiblingTask {
 // (largest) batches do not leave a thread idle at the end.
 constexpr std::uint32_t siblings_per_task = 64;
 
+// Below this x the enumeration takes microseconds and runs on the calling thread alone.
+constexpr Natural small_x_single_thread = Natural{1} << 22;
+
 class OddPrefixCounter {
  public:
   OddPrefixCounter(const PrimeCountTable& table) : table_(table), primes_(table.primes()), x_(table.x()) {}
@@ -123,7 +126,10 @@ OmegaCounts count_by_omega(std::uint64_t x, unsigned threads) {
     return a.scale * a.prefix * table.primes()[a.j_lo] < b.scale * b.prefix * table.primes()[b.j_lo];
   });
 
-  const unsigned workers = static_cast<unsigned>(std::max<std::size_t>(1, std::min<std::size_t>(threads, tasks.size())));
+  // Below small_x_single_thread the whole enumeration is shorter than starting a thread.
+  const unsigned workers = x < small_x_single_thread
+                               ? 1U
+                               : static_cast<unsigned>(std::max<std::size_t>(1, std::min<std::size_t>(threads, tasks.size())));
   std::vector<std::array<OmegaArray, 2>> partial(workers, std::array<OmegaArray, 2>{});
   std::atomic<std::size_t> next{0};
   auto run = [&](unsigned w) {

@@ -45,7 +45,7 @@ void parallel_range(Natural lo, Natural hi, unsigned threads, const Body& body) 
 PrimeCountTable::PrimeCountTable(Natural x, unsigned threads) : x_(x), root_(0), large_count_(0) {
   if (x < 1) throw InvalidArgument("prime counting needs x >= 1");
   if (x > max_prime_count_x)
-    throw InvalidArgument("prime counting is verified only up to x = 10^15, got " + std::to_string(x));
+    throw InvalidArgument("prime counting is verified only up to x = 10^14, got " + std::to_string(x));
   if (threads < 1) throw InvalidArgument("thread count must be at least 1");
   root_ = integer_sqrt(x);
   large_count_ = x / (root_ + 1);

@@ -9,12 +9,12 @@
 
 namespace sqfc::arith {
 
-/// Largest x the prime-counting table accepts: 10^15. The table needs
-/// 12 * floor(sqrt(x)) bytes (about 380 MB at 10^15) and time about x^(3/4) / log x, so the
-/// bound is one of memory and time, not of integer width (every value stays below x < 2^50,
-/// every product j * p formed stays <= x). Verified: pi(10^k) for k <= 14 against
-/// OEIS A006880 (tests/arith/test_prime_counting*.cpp and the benchmark).
-inline constexpr Natural max_prime_count_x = 1'000'000'000'000'000ULL;
+/// Largest x the prime-counting table accepts: 10^14, the largest x verified (pi(10^k) for
+/// k <= 14 against OEIS A006880 in tests/arith/test_omega_counting_slow.cpp; every quotient
+/// against the sieve of Eratosthenes for small x). The table needs 12 * floor(sqrt(x)) bytes
+/// (120 MB at 10^14) and time about x^(3/4) / log x; integer width is not the limit (values
+/// stay <= x, and every product j * p formed is <= x).
+inline constexpr Natural max_prime_count_x = 100'000'000'000'000ULL;
 
 /// The prime-counting function at every quotient of x.
 /// Invariant: after construction, pi(v) is exact for every v <= sqrt(x) and every v = floor(x/j),
@@ -29,7 +29,7 @@ class PrimeCountTable {
   /// Builds the table for x.
   /// @param x        the number whose quotients are tabulated.
   /// @param threads  worker threads for the large rounds (1 = the calling thread only).
-  /// Pre: 1 <= x <= max_prime_count_x (checked; InvalidArgument); threads >= 1 (checked; InvalidArgument).
+  /// Pre: 1 <= x <= max_prime_count_x (checked; InvalidArgument, naming the bound); threads >= 1 (checked; InvalidArgument).
   /// Complexity: time O(x^(3/4) / log x), spread over `threads` for the rounds of the primes
   /// p with x / p^2 large; memory 12 * floor(sqrt(x)) bytes plus the primes <= sqrt(x).
   /// See: docs/algorithms/omega-counting.md.
