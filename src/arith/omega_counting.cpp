@@ -56,13 +56,35 @@ class OddPrefixCounter {
   // Adds the odd squarefree P * p_j * (more primes) <= x/scale for j in [j_lo, j_hi) to out.
   void count_siblings(Natural scale, Natural prefix, unsigned depth, std::uint32_t j_lo, std::uint32_t j_hi,
                       OmegaArray& out) const {
-    for (std::uint32_t j = j_lo; j < j_hi; ++j) {
+    const Natural y = x_ / (scale * prefix);  // floor(x / (scale * P))
+    std::uint32_t j = j_lo;
+    // Siblings with children of their own. P * p_j * p_(j+1)^2 grows with j, so once a sibling
+    // has no children, none of the later ones has.
+    for (; j < j_hi; ++j) {
       const Natural q = prefix * primes_[j];
       // Last primes r > p_j with q * r <= x/scale: pi(floor(x / (scale * q))) - pi(p_j).
       out[depth + 2] += table_.pi_of_quotient(scale * q) - (j + 1);
-      const std::uint32_t end = children_end(scale, q, j + 1);
-      if (end > j + 1) count_siblings(scale, q, depth + 1, j + 1, end, out);
+      if (j + 1 >= primes_.size() || Natural{primes_[j + 1]} * primes_[j + 1] > y / primes_[j]) {
+        ++j;
+        break;
+      }
+      count_siblings(scale, q, depth + 1, j + 1, children_end(scale, q, j + 1), out);
     }
+    // The leaves: sum of pi(floor(y / p_j)) - (j + 1). While scale * P * p_j <= large_count the
+    // table holds the value by index; past it, floor(y / p_j) <= sqrt(x) is a small entry.
+    Natural sum = 0;
+    const Natural by_index_below = table_.large_count() / (scale * prefix);  // p_j <= this: by index
+    for (; j < j_hi && primes_[j] <= by_index_below; ++j) sum += table_.pi_of_quotient(scale * prefix * primes_[j]) - (j + 1);
+    // floor(y / p) by a double division and one correction: y < 2^53, quotient <= sqrt(x).
+    const auto y_double = static_cast<double>(y);
+    for (; j < j_hi; ++j) {
+      const Natural p = primes_[j];
+      auto v = static_cast<Natural>(y_double / static_cast<double>(p));
+      if (v * p > y) --v;
+      else if ((v + 1) * p <= y) ++v;
+      sum += table_.pi_small(v) - (j + 1);
+    }
+    out[depth + 2] += sum;
   }
 
  private:

