@@ -42,7 +42,8 @@ void parallel_range(Natural lo, Natural hi, unsigned threads, const Body& body) 
 
 }  // namespace
 
-PrimeCountTable::PrimeCountTable(Natural x, unsigned threads) : x_(x), root_(0), large_count_(0) {
+PrimeCountTable::PrimeCountTable(Natural x, unsigned threads, const CountProgressFn& progress)
+    : x_(x), root_(0), large_count_(0) {
   if (x < 1) throw InvalidArgument("prime counting needs x >= 1");
   if (x > max_prime_count_x)
     throw InvalidArgument("prime counting is verified only up to x = 10^14, got " + std::to_string(x));
@@ -59,6 +60,16 @@ PrimeCountTable::PrimeCountTable(Natural x, unsigned threads) : x_(x), root_(0),
   for (Natural j = 1; j <= large_count_; ++j) large_[j] = x / j - 1;
 
   const Natural L = large_count_;
+  // Entries each round updates, for progress only.
+  auto round_entries = [&](Natural p) {
+    const Natural p2 = p * p;
+    return std::min(L, x / p2) + (root_ >= p2 ? root_ - p2 + 1 : 0);
+  };
+  Natural total_entries = 0;
+  if (progress)
+    for (const auto p : primes_) total_entries += round_entries(p);
+  Natural done_entries = 0;
+  Natural next_report = 0;
   std::uint64_t* large = large_.data();
   std::uint32_t* small = small_.data();
   const auto x_double = static_cast<double>(x);  // exact: x <= 10^14 < 2^53
@@ -106,6 +117,13 @@ PrimeCountTable::PrimeCountTable(Natural x, unsigned threads) : x_(x), root_(0),
         for (auto v = static_cast<std::uint32_t>(lo); v < hi; ++v) small[v] -= small[v / p32] - sp32;
       });
       top = bottom;
+    }
+    if (progress) {
+      done_entries += round_entries(p);
+      if (done_entries >= next_report || i + 1 == primes_.size()) {
+        progress(done_entries, total_entries);
+        next_report = done_entries + total_entries / 1000;
+      }
     }
   }
 }

@@ -10,6 +10,7 @@
 #include <algorithm>
 #include <cstdint>
 #include <random>
+#include <utility>
 #include <vector>
 
 #include "arith/omega_counting_test_support.hpp"
@@ -222,6 +223,39 @@ TEST(OmegaCounting, OddUpperHalfAgainstTheSieve) {
     ++checked;
   }
   EXPECT_EQ(checked, 3003);
+}
+
+TEST(OmegaCounting, ProgressIsMonotoneEndsAtTheTotalAndMayStopTheCount) {
+  const Natural x = 500'000'000;
+  for (const unsigned threads : {1U, 2U}) {
+    std::vector<std::pair<Natural, Natural>> calls;
+    const auto with = count_by_omega(x, threads, [&](Natural done, Natural total) { calls.emplace_back(done, total); });
+    const auto without = count_by_omega(x, threads);
+    EXPECT_EQ(with.squarefree_by_omega, without.squarefree_by_omega);
+    EXPECT_EQ(with.odd_squarefree_by_omega, without.odd_squarefree_by_omega);
+    ASSERT_GE(calls.size(), 10U) << threads;
+    for (std::size_t i = 0; i < calls.size(); ++i) {
+      EXPECT_EQ(calls[i].second, 1000U);
+      if (i > 0) {
+        EXPECT_GT(calls[i].first, calls[i - 1].first) << "call " << i;
+      }
+    }
+    EXPECT_EQ(calls.back().first, 1000U);
+    // A callback that throws stops the count; the exception comes out as it was thrown.
+    int seen = 0;
+    EXPECT_THROW(count_by_omega(x, threads,
+                                [&](Natural done, Natural) {
+                                  if (done > 700 && ++seen == 1) throw sqfc::IoError("stop");
+                                }),
+                 sqfc::IoError);
+    EXPECT_EQ(seen, 1);
+  }
+  // The table alone reports entries done of entries in all rounds, ending at the total.
+  std::vector<std::pair<Natural, Natural>> table_calls;
+  const PrimeCountTable table(x, 1, [&](Natural done, Natural total) { table_calls.emplace_back(done, total); });
+  ASSERT_FALSE(table_calls.empty());
+  EXPECT_EQ(table_calls.back().first, table_calls.back().second);
+  EXPECT_LE(table_calls.size(), 1100U);
 }
 
 TEST(OmegaCounting, RefusesArgumentsOutsideTheVerifiedRange) {

@@ -5,6 +5,7 @@
 #include <cstdint>
 #include <vector>
 
+#include "sqfc/arith/prime_counting.hpp"
 #include "sqfc/core/types.hpp"
 
 namespace sqfc::arith {
@@ -36,6 +37,12 @@ struct OmegaCounts {
 /// Thread-safety: reentrant.
 /// See: docs/algorithms/omega-counting.md.
 OmegaCounts count_by_omega(std::uint64_t x, unsigned threads);
+
+/// count_by_omega with progress: progress(done, 1000) is called on the calling thread, done
+/// increasing; the table of pi takes done to 600, the recursion (by tasks finished) to 1000.
+/// Pre, Complexity, Throws: as above; whatever progress throws stops the count (after the
+/// worker threads have finished).
+OmegaCounts count_by_omega(std::uint64_t x, unsigned threads, const CountProgressFn& progress);
 
 /// #{odd squarefree k in (x/2, x] : omega(k) = m} for every m, from counts at x: the reduced Betti
 /// numbers of K_x are b~_d = result[d + 1] (Björner 2011; design.md identity 2).

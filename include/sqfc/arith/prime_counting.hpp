@@ -3,6 +3,7 @@
 #pragma once
 
 #include <cstdint>
+#include <functional>
 #include <vector>
 
 #include "sqfc/core/types.hpp"
@@ -18,6 +19,10 @@ inline constexpr Natural max_prime_count_x = 100'000'000'000'000ULL;
 // The table divides in double precision, exact only below 2^53.
 static_assert(max_prime_count_x < (Natural{1} << 53));
 
+/// Progress of a long count: called with (done, total) work units, done increasing, on the thread
+/// that called the counting function (never concurrently). May be empty.
+using CountProgressFn = std::function<void(Natural done, Natural total)>;
+
 /// The prime-counting function at every quotient of x.
 /// Invariant: after construction, pi(v) is exact for every v <= sqrt(x) and every v = floor(x/j),
 /// j >= 1. Those are the only values floor(floor(x/a)/b) = floor(x/(ab)) can take, so the table
@@ -31,11 +36,13 @@ class PrimeCountTable {
   /// Builds the table for x.
   /// @param x        the number whose quotients are tabulated.
   /// @param threads  worker threads for the large rounds (1 = the calling thread only).
+  /// @param progress called after rounds with (entries updated so far, entries in all rounds),
+  ///                 at most about 1000 times; may be empty.
   /// Pre: 1 <= x <= max_prime_count_x (checked; InvalidArgument, naming the bound); threads >= 1 (checked; InvalidArgument).
   /// Complexity: time O(x^(3/4) / log x), spread over `threads` for the rounds of the primes
   /// p with x / p^2 large; memory 12 * floor(sqrt(x)) bytes plus the primes <= sqrt(x).
   /// See: docs/algorithms/omega-counting.md.
-  PrimeCountTable(Natural x, unsigned threads);
+  PrimeCountTable(Natural x, unsigned threads, const CountProgressFn& progress = {});
 
   [[nodiscard]] Natural x() const noexcept { return x_; }
   /// floor(sqrt(x)).
