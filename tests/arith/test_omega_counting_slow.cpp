@@ -1,7 +1,7 @@
 // SPDX-License-Identifier: MIT
 // The large arguments of count_by_omega: random x <= 10^8 against the segmented sieve, windows at
 // 2^32, 2^40, squares of primes near 2^16 and 10^5, a prime past 10^10 and 10^13, published
-// pi(10^k) and Q(10^k) for k = 10..14 (10^14 is the top of the verified range).
+// pi(10^k) and Q(10^k) for k = 10..14, and a window ending at 10^14, the top of the verified range.
 #include "sqfc/arith/omega_counting.hpp"
 
 #include <gtest/gtest.h>
@@ -104,6 +104,8 @@ TEST(OmegaCountingSlow, PublishedValuesUpToTheTopOfTheRange) {
     ++checked;
   }
   EXPECT_EQ(checked, 5);
+  // Next to the top: count(10^14 - 30) + the sieve's histogram of (10^14 - 30, 10^14] = count(10^14).
+  EXPECT_EQ(sqfc::testing::check_window(sqfc::arith::max_omega_counting_x - 30, {sqfc::arith::max_omega_counting_x}, 2), 1);
   EXPECT_THROW(count_by_omega(sqfc::arith::max_omega_counting_x + 1, 2), sqfc::InvalidArgument);
 }
 
