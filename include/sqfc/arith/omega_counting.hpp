@@ -32,8 +32,9 @@ struct OmegaCounts {
 /// @param threads  worker threads (1 = the calling thread only); results do not depend on it.
 /// Pre: 1 <= x <= max_omega_counting_x (checked; InvalidArgument); threads >= 1 (checked; InvalidArgument).
 /// Complexity: time O(x^(3/4) / log x) for the prime-counting table plus one table look-up per
-/// odd squarefree prefix p1 < ... < p_r with c * p1 * ... * p_r * p_r < x, c in {1, 2}
-/// (about 10^7 at x = 10^12); memory 12 * sqrt(x) bytes plus O(x^(0.4)) for the task list.
+/// odd squarefree prefix p1 < ... < p_r with c * p1 * ... * p_r * p_r <= x, c in {1, 2}
+/// (7.1e7 at x = 10^12, growing like x^0.76); memory 12 * sqrt(x) bytes plus O(x^0.4 log x) for
+/// the task list (57 MB peak in all at 10^13).
 /// Thread-safety: reentrant.
 /// See: docs/algorithms/omega-counting.md.
 OmegaCounts count_by_omega(std::uint64_t x, unsigned threads);
