@@ -275,17 +275,20 @@ class SuiteSink final : public TableSink {
   };
 
   SuiteSink(const ReferenceSieve& reference, Natural to, int top, Checks checks, std::vector<BarEvent> bar_events,
-            Natural persistence_to, std::vector<std::uint64_t> divisibility_edges)
+            Natural persistence_to, std::vector<std::uint64_t> divisibility_edges, bool store_sums)
       : reference_(reference), top_(top), checks_(checks), bar_events_(std::move(bar_events)),
         persistence_to_(persistence_to), divisibility_edges_(std::move(divisibility_edges)),
-        mertens_(to + 1, 0), squarefree_(to + 1, 0), liouville_(to + 1, 0), persistence_betti_(top + 1, 0),
+        mertens_(store_sums ? to + 1 : 0, 0), squarefree_(store_sums ? to + 1 : 0, 0), liouville_(store_sums ? to + 1 : 0, 0),
+        persistence_betti_(top + 1, 0),
         interval_(config::omega_slots, 0), engine_betti_(top + 1, 0), expected_betti_(top + 1, 0) {}
 
   void on_row(const TableRow& r) override {
     const Natural n = r.n;
-    mertens_[n] = static_cast<std::int32_t>(r.mertens);
-    squarefree_[n] = static_cast<std::uint32_t>(r.squarefree);
-    liouville_[n] = static_cast<std::int32_t>(r.liouville);
+    if (!mertens_.empty()) {
+      mertens_[n] = static_cast<std::int32_t>(r.mertens);
+      squarefree_[n] = static_cast<std::uint32_t>(r.squarefree);
+      liouville_[n] = static_cast<std::int32_t>(r.liouville);
+    }
     advance_reference(n);
     const SignedSum reference_mertens = reference_.mertens(n);
     for (int d = 0; d <= top_; ++d) engine_betti_[static_cast<std::size_t>(d)] = r.betti[static_cast<std::size_t>(d)];
@@ -519,7 +522,9 @@ IdentitySuiteReport run_identity_suite(const IdentitySuiteOptions& options, cons
     if (c) c->set_coverage(every_n(1, N), false);
   if (row_checks.betti_interval) row_checks.betti_interval->set_coverage(every_n(1, N) + " (b_0..b_" + std::to_string(top) + ")", false);
   if (row_checks.betti0) row_checks.betti0->set_coverage(every_n(2, N), false);
-  SuiteSink sink(reference, N, top, row_checks, std::move(bar_events), persistence_to, std::move(divisibility_edges));
+  // M, Q and L of the engine are kept (12 bytes per n) only for the divisor sums of identity 7.
+  SuiteSink sink(reference, N, top, row_checks, std::move(bar_events), persistence_to, std::move(divisibility_edges),
+                 selected(7));
   TableRunOptions run;
   run.to = N;
   run.threads = threads;

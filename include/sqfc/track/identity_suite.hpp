@@ -106,7 +106,7 @@ std::vector<std::string> identity_check_names(int i);
 /// written here, direct persistent homology, FLINT elimination, the bordered inverse, LAPACK, the
 /// closed-form Green function and explicit edge enumeration (docs/algorithms/identity-suite.md).
 /// Pre: 1 <= to <= max_identity_suite_n (checked; InvalidArgument); threads >= 1 (checked);
-/// identities in 1..8 (checked); a corruption names a check of the suite (checked).
+/// identities in 1..8 (checked); a corruption names a check of a selected identity (checked).
 /// Complexity: O(to log log to) for the sieves and the engine; O(A^1.5) for the literal arithmetic
 /// sums with A = min(to, arithmetic_every_n_to); the matrix checks are bounded by the bounds above.
 /// Memory about 17 bytes per n.
