@@ -62,7 +62,7 @@ class MobiusSweep {
   std::vector<Term> mu_terms_;      // terms with v_max >= 1
 };
 
-/// mu(m) for m in [0, n] (index 0 is 0), by the segmented sieve. Pre: n <= 10^16 (checked).
+/// mu(m) for m in [0, n] (index 0 is 0), by a plain sieve (not the sweep's). Pre: n <= 10^16 (checked); memory 2n bytes.
 std::vector<std::int8_t> mu_table(Natural n);
 
 /// floor(x^(1/3)) exactly.

@@ -78,13 +78,21 @@ class MuSieveTables {
       if (p < 5) continue;
       squares_.push_back(static_cast<Natural>(p) * p);
     }
-    pattern_.assign(pattern_period, 0);
-    for (const Natural p : {2ULL, 3ULL, 5ULL, 7ULL, 11ULL, 13ULL}) {
-      const auto inc = static_cast<std::uint16_t>(log_units(p) + 0x8000U);
-      for (Natural i = 0; i < pattern_period; i += p) pattern_[i] = static_cast<std::uint16_t>(pattern_[i] + inc);
-    }
-    for (const Natural q : {4ULL, 9ULL})
-      for (Natural i = 0; i < pattern_period; i += q) pattern_[i] = static_cast<std::uint16_t>(pattern_[i] + 0x1000U);
+  }
+  // The pattern does not depend on max_n: built once per process (thread-safe static init),
+  // so that many small evaluations do not pay 360 KiB of set-up each.
+  static const std::vector<std::uint16_t>& pattern() {
+    static const std::vector<std::uint16_t> words = [] {
+      std::vector<std::uint16_t> w(pattern_period, 0);
+      for (const Natural p : {2ULL, 3ULL, 5ULL, 7ULL, 11ULL, 13ULL}) {
+        const auto inc = static_cast<std::uint16_t>(log_units(p) + 0x8000U);
+        for (Natural i = 0; i < pattern_period; i += p) w[i] = static_cast<std::uint16_t>(w[i] + inc);
+      }
+      for (const Natural q : {4ULL, 9ULL})
+        for (Natural i = 0; i < pattern_period; i += q) w[i] = static_cast<std::uint16_t>(w[i] + 0x1000U);
+      return w;
+    }();
+    return words;
   }
   // 4 * 9 * 5 * 7 * 11 * 13: the primes up to 13 and the squares 4 and 9 repeat with this period.
   static constexpr Natural pattern_period = 180180;
@@ -93,7 +101,6 @@ class MuSieveTables {
   std::size_t small_prime_count_ = 0;  // primes_ below 2^14, the L1 sub-block length
   std::vector<std::uint16_t> increments_;
   std::vector<Natural> squares_;
-  std::vector<std::uint16_t> pattern_;
 };
 
 class MuSieve {
@@ -127,7 +134,7 @@ class MuSieve {
     std::size_t phase = static_cast<std::size_t>(lo_ % MuSieveTables::pattern_period);
     for (std::size_t done = 0; done < len;) {
       const std::size_t run = std::min<std::size_t>(len - done, MuSieveTables::pattern_period - phase);
-      std::memcpy(w + done, t_.pattern_.data() + phase, run * sizeof(std::uint16_t));
+      std::memcpy(w + done, MuSieveTables::pattern().data() + phase, run * sizeof(std::uint16_t));
       done += run;
       phase = 0;
     }
@@ -201,11 +208,20 @@ Natural integer_cbrt(Natural x) noexcept {
 }
 
 std::vector<std::int8_t> mu_table(Natural n) {
-  std::vector<std::int8_t> mu(static_cast<std::size_t>(n) + 1, 0);
-  if (n >= 1)
-    sieve_range(1, n + 1, [&](const SieveBlock& block) {
-      for (std::size_t i = 0; i < block.size(); ++i) mu[static_cast<std::size_t>(block.lo() + i)] = static_cast<std::int8_t>(block.mu(i));
-    });
+  if (n > config::max_sieve_n) throw InvalidArgument("mu table bound " + std::to_string(n) + " is above 10^16");
+  // Eratosthenes with sign flips: small (n is at most about 2 x^(1/3)), so no segmentation.
+  std::vector<std::int8_t> mu(static_cast<std::size_t>(n) + 1, 1);
+  std::vector<bool> composite(static_cast<std::size_t>(n) + 1, false);
+  mu[0] = 0;
+  for (Natural p = 2; p <= n; ++p) {
+    if (composite[static_cast<std::size_t>(p)]) continue;
+    for (Natural k = p; k <= n; k += p) {
+      if (k > p) composite[static_cast<std::size_t>(k)] = true;
+      mu[static_cast<std::size_t>(k)] = static_cast<std::int8_t>(-mu[static_cast<std::size_t>(k)]);
+    }
+    if (p <= n / p)
+      for (Natural k = p * p; k <= n; k += p * p) mu[static_cast<std::size_t>(k)] = 0;
+  }
   return mu;
 }
 
@@ -291,15 +307,13 @@ std::vector<Wide> MobiusSweep::run(unsigned threads, const std::function<void(do
 
   auto worker = [&]() {
     try {
-      MuSieve sieve(tables, segment_length);
-      std::vector<std::int8_t> codes(segment_length);
-      std::vector<std::int32_t> m_local(segment_length);
+      // Buffers sized to the range for small sweeps, so many small evaluations stay cheap.
+      const auto buffer = static_cast<std::size_t>(std::min<Natural>(segment_length, range));
+      MuSieve sieve(tables, buffer);
+      std::vector<std::int8_t> codes(buffer);
+      std::vector<std::int32_t> m_local(buffer);
       std::vector<Natural> plus_v, minus_v;
       std::vector<double> plus_inv, minus_inv;
-      plus_v.reserve(segment_length);
-      minus_v.reserve(segment_length);
-      plus_inv.reserve(segment_length);
-      minus_inv.reserve(segment_length);
       std::vector<Natural> cur_n(lookup_terms_.size()), next_v(lookup_terms_.size());
       std::vector<std::uint32_t> link(lookup_terms_.size());
       std::vector<std::uint32_t> heads;

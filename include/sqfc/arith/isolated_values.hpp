@@ -13,7 +13,7 @@ namespace sqfc::arith {
 /// docs/algorithms/mertens-isolated.md hold for every x < 2^64; this is the largest x the
 /// results were compared at (against published values, the sieve and the identity
 /// M(x) - M(x-1) = mu(x)), so nothing beyond it is claimed.
-inline constexpr Natural max_isolated_mertens_x = 100'000'000'000'000'000ULL;  // 10^17
+inline constexpr Natural max_isolated_mertens_x = 10'000'000'000'000'000ULL;  // 10^16
 
 /// Largest x that squarefree_isolated() accepts: 10^19 (Q(10^18) and Q near 10^19 compared in tests).
 inline constexpr Natural max_isolated_squarefree_x = 10'000'000'000'000'000'000ULL;
