@@ -100,18 +100,25 @@ Count squarefree_isolated(Natural x, const IsolatedOptions& options) {
   check_x(x, max_isolated_squarefree_x, "squarefree count");
   const Natural root = integer_sqrt(x);
   // Q(x) = sum_{d <= D} mu(d) floor(x/d^2) + sum_{k <= K} (M(isqrt(x/k)) - M(D)),
-  // D = cbrt(x), K = floor(x/(D+1)^2): for k <= K, isqrt(x/k) >= D + 1.
+  // D = cbrt(x), K = floor(x/(D+1)^2): for k <= K, isqrt(x/k) >= D + 1. The M values below the
+  // sweep limit Y are read from the sweep, the larger ones (k <= x/Y^2) are Deléglise–Rivat
+  // targets of the same sweep; Y ~ 2 x^(2/5) balances the two (the idea of Pawlewicz,
+  // arXiv:1107.4890, with our M machinery).
   const Natural d_top = std::min(detail::integer_cbrt(x), root);
-  const auto mu = detail::mu_table(d_top);
+  const auto mu_direct = detail::mu_table(d_top);
   Wide direct = 0;
   for (Natural d = 1; d <= d_top; ++d)
-    if (mu[static_cast<std::size_t>(d)] != 0) direct += mu[static_cast<std::size_t>(d)] * static_cast<Wide>(x / (d * d));
+    if (mu_direct[static_cast<std::size_t>(d)] != 0)
+      direct += mu_direct[static_cast<std::size_t>(d)] * static_cast<Wide>(x / (d * d));
   if (d_top == root) return static_cast<Count>(direct);
-  detail::MobiusSweep sweep(root + 1);
+  const auto two_fifths = static_cast<Natural>(2.0 * std::pow(static_cast<double>(x), 0.4));
+  const Natural y = std::min(root + 1, std::max({two_fifths, d_top + 2, direct_sieve_limit}));
+  detail::MobiusSweep sweep(y);
   const auto slot = sweep.add_slot();
   sweep.add_constant(slot, direct);
+  const auto mu = detail::mu_table(sweep.split_for(root));  // covers every target's u
   const Natural k_top = x / ((d_top + 1) * (d_top + 1));
-  for (Natural k = 1; k <= k_top; ++k) sweep.add_point(integer_sqrt(x / k), 1, slot);
+  for (Natural k = 1; k <= k_top; ++k) sweep.add_mertens_target(integer_sqrt(x / k), slot, mu);
   sweep.add_point(d_top, -static_cast<SignedSum>(k_top), slot);
   const Wide q = sweep.run(options.threads, options.progress)[slot];
   if (q < 0 || q > static_cast<Wide>(x)) throw InternalError("Q(x) out of [0, x]: " + to_string_wide(q));

@@ -6,7 +6,7 @@
 # Usage: tests/bench/bench_value.sh [options] [BUILD_DIR]
 #   --build-dir DIR   build tree (default build-bench); also accepted as the one positional argument
 #   --no-build        use the tree as it is (it must be Release and hold the sqfc target)
-#   --max K           largest M argument 10^K, 12 <= K <= 16 (default 16)
+#   --max K           largest M argument 10^K, 12 <= K <= 16 (default 16); 0 skips the M rows
 #   --repeats R       runs per size (default 1); the median wall time is reported
 #   --threads T       passed to sqfc value (default: its own default, every hardware thread)
 #   --out-dir DIR     where the CSV goes (default data_out/bench)
@@ -51,7 +51,7 @@ while (($#)); do
   esac
 done
 [[ "$REPEATS" =~ ^[1-9][0-9]*$ ]] || bench_die "--repeats must be a positive integer"
-[[ "$MAX" =~ ^1[2-6]$ ]] || bench_die "--max must be 12 .. 16"
+[[ "$MAX" =~ ^(1[2-6]|0)$ ]] || bench_die "--max must be 12 .. 16, or 0"
 
 # M(10^k): OEIS A084237 (12..15 from memory, each also reproduced by the sieve-independent
 # tests); 10^16: M. Deléglise, J. Rivat, Experimental Mathematics 5 (1996), abstract.
@@ -103,7 +103,7 @@ BASE_SECONDS="$RUN_MEDIAN"
 rows=("table_sieve_mertens,10000000000,$RUN_MEDIAN,$RUN_PEAK_MIB,1")
 fit_points=()
 M16_SECONDS=""; M16_PEAK=""
-for ((k = 12; k <= MAX; k++)); do
+for ((k = 12; MAX > 0 && k <= MAX; k++)); do
   x="1$(printf '%0*d' "$k" 0)"
   run_value "M(10^$k)" "${PUB_M[$k]}" mertens "$SQFC" value "$x" --what mertens "${THREAD_ARGS[@]}"
   ratio="$(awk -v x="$x" -v s="$RUN_MEDIAN" -v b="$BASE_SECONDS" 'BEGIN { printf "%.1f", (x / s) / (1e10 / b) }')"

@@ -64,10 +64,12 @@ SignedSum liouville_isolated(Natural x, const IsolatedOptions& options = {});
 
 /// Q(x), the number of squarefree k <= x, from Q(x) = sum_{d <= sqrt x} mu(d) floor(x/d^2)
 /// (design.md identity 7): terms d <= D = x^(1/3) directly, and the d > D grouped by
-/// k = floor(x/d^2) as sum_{k <= K} (M(isqrt(x/k)) - M(D)), the M values read from a sweep of
-/// mu over [1, isqrt(x)]. options.sieve_limit is ignored.
+/// k = floor(x/d^2) as sum_{k <= K} (M(isqrt(x/k)) - M(D)); the M values below Y = 2 x^(2/5) are
+/// read from a sweep of mu over [1, Y), the larger ones (k <= x/Y^2) are Deléglise–Rivat
+/// targets of the same sweep. options.sieve_limit is ignored.
 /// Pre: 1 <= x <= max_isolated_squarefree_x (checked; InvalidArgument).
-/// Complexity: time O(sqrt(x) log log x), memory O(x^(1/4) + x^(1/3)) plus 3 MiB per thread.
+/// Complexity: time O(x^(2/5)) for the sweep and its targets plus O(x^(1/3)) for the direct
+/// terms and points; memory O(x^(1/3)) (24 bytes per point) plus 3 MiB per thread.
 Count squarefree_isolated(Natural x, const IsolatedOptions& options = {});
 
 /// det(1 + A(H_x)) = (-1)^((Q(x) + M(x))/2 - 1) (design.md identity 3).
