@@ -13,8 +13,6 @@
 #include <thread>
 
 #include "sqfc/arith/base_primes.hpp"
-#include "sqfc/arith/factor_code.hpp"
-#include "sqfc/arith/sieve.hpp"
 #include "sqfc/core/checked.hpp"
 #include "sqfc/core/config.hpp"
 #include "sqfc/core/error.hpp"
@@ -22,7 +20,7 @@
 namespace sqfc::arith::detail {
 namespace {
 
-// Values per segment: the sieve block and the int32 table of M inside it (512 KiB each),
+// Values per segment: 16-bit sieve words (256 KiB) and the int32 table of M (512 KiB),
 // so both stay in the 2 MiB L2 of the development machine while the lookups hit them.
 constexpr std::size_t segment_length = std::size_t{1} << 17;
 // Chunks per thread: a chunk is the unit a worker takes; more chunks balance the uneven
