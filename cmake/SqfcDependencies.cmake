@@ -6,6 +6,8 @@ find_package(Boost 1.74 REQUIRED)
 find_package(CLI11 2.1 CONFIG REQUIRED)
 # Symmetric eigenvalues for the spectrum check (Debian: liblapack-dev, libblas-dev).
 find_package(LAPACK REQUIRED)
+# Run stores of `sqfc table --store` (Debian: libsqlite3-dev).
+find_package(SQLite3 REQUIRED)
 
 # FLINT 2.9 ships neither a CMake config nor a .pc file.
 pkg_check_modules(GMP REQUIRED IMPORTED_TARGET gmp)
