@@ -98,7 +98,7 @@ class Statement {
     const int primary = rc & 0xFF;
     if (primary == SQLITE_FULL || (primary == SQLITE_IOERR))
       throw IoError("run store '" + store_ + "': cannot write (" + message +
-                    "; disk full or file-size limit?); the store keeps every segment committed before");
+                    "; disk full or file-size limit?)");
     if (primary == SQLITE_CORRUPT || primary == SQLITE_NOTADB)
       throw IoError("run store '" + store_ + "' is damaged (" + message + ")");
     throw IoError("run store '" + store_ + "': " + message);
@@ -146,7 +146,7 @@ struct RunStore::Impl {
       const int primary = rc & 0xFF;
       if (primary == SQLITE_FULL || primary == SQLITE_IOERR)
         throw IoError("run store '" + path + "': cannot write (" + message +
-                      "; disk full or file-size limit?); the store keeps every segment committed before");
+                      "; disk full or file-size limit?)");
       if (primary == SQLITE_CORRUPT || primary == SQLITE_NOTADB)
         throw IoError("run store '" + path + "' is damaged or not a run store (" + message + ")");
       throw IoError("run store '" + path + "': " + message);
@@ -405,6 +405,10 @@ void RunStore::commit_segment(const track::SegmentCommit& commit, const std::vec
       s.update_attempt->bind(3, wall).bind(4, as_signed(s.attempt)).run();
     }
     s.exec("COMMIT");
+  } catch (const IoError& e) {
+    sqlite3_exec(s.db, "ROLLBACK", nullptr, nullptr, nullptr);
+    throw IoError(std::string(e.what()) + "; the store is intact up to n = " + std::to_string(s.done) +
+                  ", continue it with --resume");
   } catch (...) {
     sqlite3_exec(s.db, "ROLLBACK", nullptr, nullptr, nullptr);
     throw;
