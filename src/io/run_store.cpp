@@ -4,7 +4,12 @@
 
 #include <sqlite3.h>
 
+#include <unistd.h>
+
+#include <cerrno>
 #include <chrono>
+#include <cstdio>
+#include <cstring>
 #include <filesystem>
 
 #include "sqfc/core/error.hpp"
@@ -153,8 +158,8 @@ struct RunStore::Impl {
     }
   }
 
-  void open(int flags) {
-    const int rc = sqlite3_open_v2(path.c_str(), &db, flags, nullptr);
+  void open(int flags, const std::string& file = {}) {
+    const int rc = sqlite3_open_v2((file.empty() ? path : file).c_str(), &db, flags, nullptr);
     if (rc != SQLITE_OK)
       throw IoError("cannot open run store '" + path + "': " + (db ? sqlite3_errmsg(db) : sqlite3_errstr(rc)));
     sqlite3_extended_result_codes(db, 1);
@@ -284,23 +289,42 @@ RunStore RunStore::create(const std::string& path, const std::vector<RunParamete
   std::error_code ec;
   if (std::filesystem::exists(path, ec))
     throw InvalidArgument("run store '" + path + "' already exists: add --resume to continue it, or remove it");
+  // The schema is written into a temporary file that is renamed into place once complete, so a
+  // process killed while creating leaves no half-made store behind (only the temporary file).
+  const std::string temporary = path + ".part-" + std::to_string(::getpid());
+  std::filesystem::remove(temporary, ec);
+  {
+    auto maker = std::make_unique<Impl>();
+    maker->path = path;
+    maker->open(SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE, temporary);
+    try {
+      maker->exec("BEGIN");
+      maker->exec(schema_sql);
+      maker->exec("PRAGMA application_id = " + std::to_string(application_id));
+      maker->exec("PRAGMA user_version = " + std::to_string(run_store_schema_version));
+      {
+        Statement meta(maker->db, "INSERT INTO meta VALUES (?1, ?2)", path);
+        meta.bind(1, std::string("schema_version")).bind(2, std::to_string(run_store_schema_version)).run();
+        meta.bind(1, std::string("sqfc_version")).bind(2, std::string(version_string)).run();
+        meta.bind(1, std::string("created_utc")).bind(2, utc_timestamp(std::chrono::system_clock::now())).run();
+        Statement param(maker->db, "INSERT INTO parameters VALUES (?1, ?2)", path);
+        for (const auto& p : parameters) param.bind(1, p.name).bind(2, p.value).run();
+      }
+      maker->exec("COMMIT");
+    } catch (...) {
+      maker.reset();
+      std::filesystem::remove(temporary, ec);
+      throw;
+    }
+  }
+  if (std::rename(temporary.c_str(), path.c_str()) != 0) {
+    std::filesystem::remove(temporary, ec);
+    throw IoError("cannot create run store '" + path + "': " + std::strerror(errno));
+  }
   auto impl = std::make_unique<Impl>();
   impl->path = path;
-  impl->open(SQLITE_OPEN_READWRITE | SQLITE_OPEN_CREATE);
+  impl->open(SQLITE_OPEN_READWRITE);
   impl->configure_writer();
-  impl->exec("BEGIN");
-  impl->exec(schema_sql);
-  impl->exec("PRAGMA application_id = " + std::to_string(application_id));
-  impl->exec("PRAGMA user_version = " + std::to_string(run_store_schema_version));
-  {
-    Statement meta(impl->db, "INSERT INTO meta VALUES (?1, ?2)", path);
-    meta.bind(1, std::string("schema_version")).bind(2, std::to_string(run_store_schema_version)).run();
-    meta.bind(1, std::string("sqfc_version")).bind(2, std::string(version_string)).run();
-    meta.bind(1, std::string("created_utc")).bind(2, utc_timestamp(std::chrono::system_clock::now())).run();
-    Statement param(impl->db, "INSERT INTO parameters VALUES (?1, ?2)", path);
-    for (const auto& p : parameters) param.bind(1, p.name).bind(2, p.value).run();
-  }
-  impl->exec("COMMIT");
   impl->verify();
   impl->prepare_writes();
   return RunStore(std::move(impl));
