@@ -21,3 +21,11 @@ if(NOT TARGET sqfc_flint)
     INTERFACE_INCLUDE_DIRECTORIES "${FLINT_INCLUDE_DIR}"
     INTERFACE_LINK_LIBRARIES "PkgConfig::MPFR;PkgConfig::GMP")
 endif()
+
+# Distributed table runs (mpirun -np K sqfc table ...; Debian: libopenmpi-dev, openmpi-bin).
+# Optional: ON when MPI is found, and the build works without it.
+find_package(MPI COMPONENTS CXX QUIET)
+option(SQFC_ENABLE_MPI "Build distributed table runs over MPI (needs an MPI library)" ${MPI_CXX_FOUND})
+if(SQFC_ENABLE_MPI AND NOT MPI_CXX_FOUND)
+  message(FATAL_ERROR "SQFC_ENABLE_MPI is ON but no MPI library was found (Debian: libopenmpi-dev)")
+endif()

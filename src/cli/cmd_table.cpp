@@ -165,12 +165,7 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
     throw_if_interrupted();
     bar.update(done, total);
   };
-  if (job.store_path) {
-    io::RunStore store = open_run_store(job);
-    result.report = io::run_table_stored(job.run, store, sink, progress);
-  } else {
-    result.report = track::run_table(job.run, sink, progress);
-  }
+  result.report = run_table_engine(job, sink, progress);
   bar.finish();
   table_file.commit();
   if (events_file) events_file->commit();
@@ -196,6 +191,7 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
     m.set("parameters", std::move(parameters));
     io::set_run_times(m, started, result.wall_seconds);
     m.set("threads", job.run.threads);
+    if (job.run.ranks > 1) m.set("ranks", job.run.ranks);
     io::Json outputs;
     outputs.set("table", job.out);
     if (job.events_path) outputs.set("events", *job.events_path);
@@ -218,7 +214,16 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
 }
 
 int run_table_command(const TableArguments& args, const Invocation& invocation) {
-  const TableJob job = make_table_job(args, invocation);
+  const DistributedScope mpi;  // MPI only under an MPI launcher
+  TableJob job;
+  try {
+    job = make_table_job(args, invocation);
+  } catch (const Error&) {
+    if (mpi.rank() > 0) return exit_code::bad_input;  // rank 0 reports it
+    throw;
+  }
+  job.run.ranks = mpi.ranks();
+  if (const auto worker = run_worker_rank(job)) return *worker;
   const TableJobResult result = run_table_job(job, invocation);
   if (!result.report.all_checks_passed()) {
     for (const auto& c : result.report.checks)

@@ -3,7 +3,16 @@
 #include "table_store.hpp"
 
 #include <algorithm>
+#include <cstdlib>
 #include <filesystem>
+#include <iostream>
+#include <memory>
+
+#include "sqfc/core/error.hpp"
+#include "sqfc/io/stored_run.hpp"
+#if SQFC_HAVE_MPI
+#include "sqfc/io/mpi_run.hpp"
+#endif
 
 namespace sqfc::cli {
 
@@ -43,6 +52,85 @@ io::RunStore open_run_store(const TableJob& job) {
                            : io::RunStore::create(path, job.store_parameters);
   store.begin_attempt(job.run.threads, job.run.ranks);
   return store;
+}
+
+namespace {
+#if SQFC_HAVE_MPI
+std::unique_ptr<io::MpiSession> session;  // the one MPI session of this process, when launched by mpirun
+
+// Launchers announce themselves in the environment: OpenMPI's mpirun, and PMI/PMIx launchers
+// (Slurm's srun, MPICH's hydra).
+bool launched_by_mpi() {
+  for (const char* name : {"OMPI_COMM_WORLD_SIZE", "PMIX_RANK", "PMI_SIZE"})
+    if (std::getenv(name) != nullptr) return true;
+  return false;
+}
+#endif
+}  // namespace
+
+DistributedScope::DistributedScope() {
+#if SQFC_HAVE_MPI
+  if (launched_by_mpi() && !session) session = std::make_unique<io::MpiSession>();
+#endif
+}
+
+DistributedScope::~DistributedScope() {
+#if SQFC_HAVE_MPI
+  session.reset();
+#endif
+}
+
+unsigned DistributedScope::rank() const noexcept {
+#if SQFC_HAVE_MPI
+  if (session) return session->rank();
+#endif
+  return 0;
+}
+
+unsigned DistributedScope::ranks() const noexcept {
+#if SQFC_HAVE_MPI
+  if (session) return session->size();
+#endif
+  return 1;
+}
+
+track::TableRunReport run_table_engine(const TableJob& job, track::TableSink& sink, const track::ProgressFn& progress) {
+#if SQFC_HAVE_MPI
+  if (session && session->size() > 1) {
+    try {
+      std::optional<io::RunStore> store;
+      if (job.store_path && session->rank() == 0) store = open_run_store(job);
+      return io::run_table_distributed(job.run, *session, sink, store ? &*store : nullptr,
+                                       session->rank() == 0 ? progress : track::ProgressFn{});
+    } catch (const Error& e) {
+      std::string message = e.what();
+      for (auto& c : message)
+        if (c == '\n') c = ' ';
+      std::cerr << "sqfc table: error (rank " << session->rank() << "): " << message << '\n';
+      session->abort(e.exit_code());
+    }
+  }
+#endif
+  if (job.store_path) {
+    io::RunStore store = open_run_store(job);
+    return io::run_table_stored(job.run, store, sink, progress);
+  }
+  return track::run_table(job.run, sink, progress);
+}
+
+std::optional<int> run_worker_rank(const TableJob& job) {
+#if SQFC_HAVE_MPI
+  if (session && session->rank() > 0) {
+    struct NoOutput : track::TableSink {
+      void on_row(const track::TableRow&) override {}
+      void on_event(const track::Event&) override {}
+    } none;
+    (void)run_table_engine(job, none, {});
+    return exit_code::ok;
+  }
+#endif
+  (void)job;
+  return std::nullopt;
 }
 
 }  // namespace sqfc::cli

@@ -4,6 +4,8 @@
 
 #include <sqlite3.h>
 
+#include <fcntl.h>
+#include <sys/file.h>
 #include <unistd.h>
 
 #include <cerrno>
@@ -132,8 +134,19 @@ struct RunStore::Impl {
   Count attempt = 0;
   std::chrono::steady_clock::time_point attempt_start;
   std::unique_ptr<Statement> insert_segment, insert_block, insert_row, insert_event, update_attempt;
+  int lock_fd = -1;  // flock held by a writer for its whole run
+
+  // One writer per store: a second run (or a leftover rank of a killed MPI job) is refused
+  // instead of committing segments alongside. The kernel drops the lock when the process dies.
+  void lock_for_writing() {
+    lock_fd = ::open(path.c_str(), O_RDONLY | O_CLOEXEC);
+    if (lock_fd < 0) throw IoError("cannot open run store '" + path + "': " + std::strerror(errno));
+    if (::flock(lock_fd, LOCK_EX | LOCK_NB) != 0)
+      throw IoError("run store '" + path + "' is in use by another sqfc process");
+  }
 
   ~Impl() {
+    if (lock_fd >= 0) ::close(lock_fd);
     insert_segment.reset();
     insert_block.reset();
     insert_row.reset();
@@ -323,6 +336,7 @@ RunStore RunStore::create(const std::string& path, const std::vector<RunParamete
   }
   auto impl = std::make_unique<Impl>();
   impl->path = path;
+  impl->lock_for_writing();
   impl->open(SQLITE_OPEN_READWRITE);
   impl->configure_writer();
   impl->verify();
@@ -335,6 +349,7 @@ RunStore RunStore::open_for_resume(const std::string& path, const std::vector<Ru
   if (!std::filesystem::is_regular_file(path, ec)) throw IoError("run store '" + path + "' does not exist");
   auto impl = std::make_unique<Impl>();
   impl->path = path;
+  impl->lock_for_writing();
   impl->open(SQLITE_OPEN_READWRITE);
   impl->configure_writer();
   impl->verify();

@@ -30,6 +30,13 @@ class StoreSink : public track::TableSink {
 
 }  // namespace
 
+std::unique_ptr<track::TableSink> make_store_sink(RunStore& store) { return std::make_unique<StoreSink>(store); }
+
+void replay_store(const RunStore& store, track::TableSink& output) {
+  store.for_each_row([&](const track::TableRow& row) { output.on_row(row); });
+  store.for_each_event([&](const track::Event& event) { output.on_event(event); });
+}
+
 track::TableRunReport report_from_store(const RunStore& store) {
   const auto last = store.last_checkpoint();
   if (!last) throw InvalidArgument("run store holds no segment yet");
@@ -53,8 +60,7 @@ track::TableRunReport run_table_stored(const track::TableRunOptions& options, Ru
     if (!(computed.final_state == store.last_checkpoint()->state()) || store.done() != options.to)
       throw InternalError("the run store does not end in the state the engine reached");
   }
-  store.for_each_row([&](const track::TableRow& row) { output.on_row(row); });
-  store.for_each_event([&](const track::Event& event) { output.on_event(event); });
+  replay_store(store, output);
   return report_from_store(store);
 }
 

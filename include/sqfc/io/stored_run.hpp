@@ -2,6 +2,8 @@
 /// @file stored_run.hpp  A table run checkpointed into a run store, and its outputs rebuilt from it.
 #pragma once
 
+#include <memory>
+
 #include "sqfc/io/run_store.hpp"
 #include "sqfc/track/table_engine.hpp"
 
@@ -19,6 +21,13 @@ namespace sqfc::io {
 /// whatever @p output throws.
 track::TableRunReport run_table_stored(const track::TableRunOptions& options, RunStore& store,
                                        track::TableSink& output, const track::ProgressFn& progress = {});
+
+/// A sink that keeps each segment's rows and events and commits them with the segment, in one
+/// transaction, when the engine reports the segment done (on_segment_committed).
+std::unique_ptr<track::TableSink> make_store_sink(RunStore& store);
+
+/// Replays every stored row (increasing n) and event (in order) into @p output. Throws: IoError.
+void replay_store(const RunStore& store, track::TableSink& output);
 
 /// The report a store's last checkpoint describes (rows, events, blocks, checks, final state).
 /// Pre: the store holds at least one segment (checked; InvalidArgument).
