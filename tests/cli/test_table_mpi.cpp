@@ -22,7 +22,7 @@ RunResult run_mpi(const ScratchDir& dir, int ranks, const std::vector<std::strin
 }
 #endif
 
-std::vector<std::string> mpi_args(const std::string& to) {
+[[maybe_unused]] std::vector<std::string> mpi_args(const std::string& to) {
   return {"table", "--to", to, "--every", "7000001", "--events", "ev.csv", "--out", "t.csv", "--quiet", "--threads", "1"};
 }
 
