@@ -8,7 +8,8 @@ BUILD_DIR="${1:-build}"
 
 PACKAGES=(build-essential cmake pkg-config libflint-dev libboost-dev libcli11-dev
           libgtest-dev libbenchmark-dev libpari-dev pari-gp nlohmann-json3-dev gnuplot-nox
-          liblapack-dev libblas-dev python3-networkx python3-scipy libgudhi-dev)
+          liblapack-dev libblas-dev python3-networkx python3-scipy libgudhi-dev
+          libsqlite3-dev libopenmpi-dev openmpi-bin)
 missing=()
 for p in "${PACKAGES[@]}"; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")

@@ -23,6 +23,9 @@ extern "C" void remember_interrupt(int signal_number) { interrupt_signal = signa
 void install_interrupt_handlers() {
   std::signal(SIGINT, remember_interrupt);
   std::signal(SIGTERM, remember_interrupt);
+  // Past a file-size limit (ulimit -f) writes then fail with EFBIG and get one clear error
+  // line, instead of the signal killing the process mid-write.
+  std::signal(SIGXFSZ, SIG_IGN);
 }
 
 void throw_if_interrupted() {

@@ -13,6 +13,8 @@
 #include "sqfc/core/number_parse.hpp"
 #include "sqfc/io/atomic_file.hpp"
 #include "sqfc/io/manifest.hpp"
+#include "sqfc/io/stored_run.hpp"
+#include "table_store.hpp"
 
 namespace sqfc::cli {
 namespace {
@@ -80,6 +82,9 @@ void add_table_command(CLI::App& app, TableArguments& a) {
   cmd->add_option_function<std::string>(
       "--block-size", [&a](const std::string& v) { a.block_size = v; }, "sieve block size in values (default 2^17)");
   cmd->add_flag("--quiet,-q", a.quiet, std::string("no progress bar"));
+  cmd->add_option_function<std::string>(
+      "--store", [&a](const std::string& v) { a.store = v; }, "checkpoint every segment into this run store (SQLite)");
+  cmd->add_flag("--resume", a.resume, std::string("continue the run in the --store file where it stopped"));
 }
 
 TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
@@ -94,7 +99,8 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
     run.block_size = static_cast<std::size_t>(parse_number_option(*a.block_size, "--block-size", 1024, 1 << 24));
   run.segment_size = std::max<Natural>(config::default_segment_size, run.block_size);
 
-  run.samples = parse_sample_request(a.every, a.at, a.log, config::max_sieve_n, "10^16").schedule(run.from, run.to);
+  const SampleRequest sample_request = parse_sample_request(a.every, a.at, a.log, config::max_sieve_n, "10^16");
+  run.samples = sample_request.schedule(run.from, run.to);
   if (run.samples.empty())
   {
     std::string asked;
@@ -125,6 +131,13 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
   }
   job.quiet = a.quiet;
   reject_shared_paths(job);
+  if (a.resume && !a.store) throw InvalidArgument("--resume needs --store FILE");
+  if (a.store) {
+    if (a.store->empty() || *a.store == "-") throw InvalidArgument("--store: needs a file path");
+    job.store_path = *a.store;
+    job.resume = a.resume;
+    job.store_parameters = store_parameters(job, sample_request);
+  }
   return job;
 }
 
@@ -148,10 +161,11 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
 
   ProgressBar bar(job.label, job.quiet);
   TableJobResult result;
-  result.report = track::run_table(job.run, sink, [&](Natural done, Natural total) {
+  const track::ProgressFn progress = [&](Natural done, Natural total) {
     throw_if_interrupted();
     bar.update(done, total);
-  });
+  };
+  result.report = run_table_engine(job, sink, progress);
   bar.finish();
   table_file.commit();
   if (events_file) events_file->commit();
@@ -177,9 +191,11 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
     m.set("parameters", std::move(parameters));
     io::set_run_times(m, started, result.wall_seconds);
     m.set("threads", job.run.threads);
+    if (job.run.ranks > 1) m.set("ranks", job.run.ranks);
     io::Json outputs;
     outputs.set("table", job.out);
     if (job.events_path) outputs.set("events", *job.events_path);
+    if (job.store_path) outputs.set("store", *job.store_path);
     m.set("outputs", std::move(outputs));
     io::Json counts;
     counts.set("rows", r.rows);
@@ -198,7 +214,16 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
 }
 
 int run_table_command(const TableArguments& args, const Invocation& invocation) {
-  const TableJob job = make_table_job(args, invocation);
+  const DistributedScope mpi;  // MPI only under an MPI launcher
+  TableJob job;
+  try {
+    job = make_table_job(args, invocation);
+  } catch (const Error&) {
+    if (mpi.rank() > 0) return exit_code::bad_input;  // rank 0 reports it
+    throw;
+  }
+  job.run.ranks = mpi.ranks();
+  if (const auto worker = run_worker_rank(job)) return *worker;
   const TableJobResult result = run_table_job(job, invocation);
   if (!result.report.all_checks_passed()) {
     for (const auto& c : result.report.checks)

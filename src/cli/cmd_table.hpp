@@ -8,6 +8,7 @@
 
 #include "cli_support.hpp"
 #include "sqfc/io/columns.hpp"
+#include "sqfc/io/run_store.hpp"
 #include "sqfc/io/table_writer.hpp"
 #include "sqfc/track/table_engine.hpp"
 
@@ -21,8 +22,9 @@ namespace sqfc::cli {
 /// that an empty value (`--every ""`) is an error rather than a silent default.
 struct TableArguments {
   std::string to, from = "1", format = "csv";
-  std::optional<std::string> every, at, log, columns, out, events, threads, block_size;
+  std::optional<std::string> every, at, log, columns, out, events, threads, block_size, store;
   bool quiet = false;
+  bool resume = false;
 };
 
 /// A validated table job.
@@ -35,6 +37,9 @@ struct TableJob {
   bool quiet = false;
   std::vector<std::string> bfile_comments;
   std::string label = "table";   ///< progress-bar label
+  std::optional<std::string> store_path;  ///< --store: checkpoint into this run store
+  bool resume = false;                    ///< --resume: continue the store's run
+  std::vector<io::RunParameter> store_parameters;  ///< what a resumed store must match
 };
 
 /// What a finished job wrote and found.

@@ -12,6 +12,7 @@
 #include "cmd_face.hpp"
 #include "cmd_fredholm.hpp"
 #include "cmd_homology.hpp"
+#include "cmd_runs.hpp"
 #include "cmd_table.hpp"
 #include "cmd_value.hpp"
 #include "sqfc/core/error.hpp"
@@ -50,6 +51,8 @@ int main(int argc, char** argv) {
   sqfc::cli::add_homology_command(app, homology_args);
   sqfc::cli::ValueArguments value_args;
   sqfc::cli::add_value_command(app, value_args);
+  sqfc::cli::RunsArguments runs_args;
+  sqfc::cli::add_runs_command(app, runs_args);
 
   std::string command = "sqfc";
   sqfc::cli::install_interrupt_handlers();
@@ -59,7 +62,7 @@ int main(int argc, char** argv) {
     bool known = false;
     for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, value, fredholm, homology, face, complex, check, demo; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, value, fredholm, homology, face, complex, check, demo, runs; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }
@@ -83,6 +86,7 @@ int main(int argc, char** argv) {
     if (app.got_subcommand("complex")) return sqfc::cli::run_complex_command(complex_args, invocation);
     if (app.got_subcommand("homology")) return sqfc::cli::run_homology_command(homology_args, invocation);
     if (app.got_subcommand("value")) return sqfc::cli::run_value_command(value_args, invocation);
+    if (app.got_subcommand("runs")) return sqfc::cli::run_runs_command(app, runs_args);
     std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
     return sqfc::exit_code::bad_input;
   } catch (const sqfc::Error& e) {

@@ -46,6 +46,26 @@ int compare_scaled(SignedSum m1, Natural n1, SignedSum m2, Natural n2) noexcept 
   return s1 > 0 ? magnitude : -magnitude;
 }
 
+EventDetector::EventDetector(const EventRecords& saved)
+    : high_(saved.high),
+      low_(saved.low),
+      scaled_high_m_(saved.scaled_high_m),
+      scaled_low_m_(saved.scaled_low_m),
+      scaled_high_n_(saved.scaled_high_n),
+      scaled_low_n_(saved.scaled_low_n),
+      face_dims_seen_(saved.face_dims_seen),
+      homology_dims_seen_(saved.homology_dims_seen) {
+  // Same expression as observe(), so the restored doubles are bit-identical to the original ones.
+  if (scaled_high_n_ > 0)
+    scaled_high_ = static_cast<double>(scaled_high_m_) / std::sqrt(static_cast<double>(scaled_high_n_));
+  if (scaled_low_n_ > 0)
+    scaled_low_ = static_cast<double>(scaled_low_m_) / std::sqrt(static_cast<double>(scaled_low_n_));
+}
+
+EventRecords EventDetector::records() const noexcept {
+  return {high_, low_, scaled_high_m_, scaled_low_m_, scaled_high_n_, scaled_low_n_, face_dims_seen_, homology_dims_seen_};
+}
+
 bool EventDetector::may_fire_in(const TrackerState& before, const BlockSummary& s) const {
   if (s.empty()) return false;
   if (s.lo <= 2) return true;  // initialisation at n = 1 and b_0 at n = 2

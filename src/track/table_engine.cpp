@@ -49,6 +49,10 @@ class RowChecks {
     tally_.record(2, expected == r.fredholm, r.n);
   }
   void check_rescan(bool ok, Natural n) { tally_.record(3, ok, n); }
+  [[nodiscard]] const std::vector<CheckOutcome>& outcomes() const noexcept { return tally_.outcomes(); }
+  void restore(const std::vector<CheckOutcome>& saved) {
+    if (!tally_.restore(saved)) throw InvalidArgument("the checkpoint's identity checks are not this engine's");
+  }
   std::vector<CheckOutcome> take() { return tally_.take(); }
 
  private:
@@ -58,6 +62,25 @@ class RowChecks {
 }  // namespace
 
 bool TableRunReport::all_checks_passed() const { return all_passed(checks); }
+
+TrackerState RunCheckpoint::state() const {
+  TrackerState s;
+  s.apply(total);
+  return s;
+}
+
+bool operator==(const RunCheckpoint& a, const RunCheckpoint& b) {
+  if (!(a.total == b.total && a.records == b.records && a.rows == b.rows && a.events == b.events &&
+        a.blocks == b.blocks && a.scanned_blocks == b.scanned_blocks && a.checks.size() == b.checks.size()))
+    return false;
+  for (std::size_t i = 0; i < a.checks.size(); ++i) {
+    const auto &x = a.checks[i], &y = b.checks[i];
+    if (x.name != y.name || x.statement != y.statement || x.passed != y.passed || x.failed != y.failed ||
+        x.first_failure != y.first_failure || x.first_failure_detail != y.first_failure_detail)
+      return false;
+  }
+  return true;
+}
 
 TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const ProgressFn& progress) {
   if (options.to < 1 || options.to > config::max_sieve_n)
@@ -81,10 +104,45 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
   TrackerState state;
   EventDetector detector;
   RowChecks checks;
+  BlockSummary total;  // of [1, state.n()], for checkpoints
+
+  // A checkpoint replaces the whole ordered state: on resume, and in a distributed run before
+  // each segment whose predecessor another process committed.
+  auto load_checkpoint = [&](const RunCheckpoint& c) {
+    if (c.total.lo != 1) throw InvalidArgument("a checkpoint must summarise [1, n]");
+    total = c.total;
+    state = c.state();
+    detector = EventDetector(c.records);
+    checks.restore(c.checks);
+    report.rows = c.rows;
+    report.events = c.events;
+    report.blocks = c.blocks;
+    report.scanned_blocks = c.scanned_blocks;
+  };
+  if (options.ranks < 1 || options.rank >= options.ranks) throw InvalidArgument("rank must lie in [0, ranks)");
+  if (options.ranks > 1 && !options.await_checkpoint)
+    throw InvalidArgument("a distributed run needs a way to receive checkpoints");
+  Natural first_segment = 0;
+  if (options.resume_from) {
+    const Natural done = options.resume_from->total.hi - 1;
+    if (done > options.to || (done % segment_size != 0 && done != options.to))
+      throw InvalidArgument("resume point n = " + std::to_string(done) + " is not a segment boundary of this run");
+    load_checkpoint(*options.resume_from);
+    first_segment = (done == options.to) ? segment_count : done / segment_size;
+  }
+  // Segments g >= first_segment with g % ranks == rank, in increasing order.
+  Natural first_local = first_segment + (options.rank + options.ranks - first_segment % options.ranks) % options.ranks;
+  const Natural local_count = first_local >= segment_count ? 0 : (segment_count - 1 - first_local) / options.ranks + 1;
+  std::vector<std::uint8_t> scanned;  // of the segment being committed
+  Natural last_committed = first_segment == 0 ? ~Natural{0} : first_segment - 1;
 
   // Parallel part: sieve the segment block by block, keep the codes, summarise each block
   // while it is still in cache.
-  auto work = [&](unsigned w, Natural, Natural seg_lo, Natural seg_hi) {
+  auto segment_lo = [&](Natural g) { return 1 + g * segment_size; };
+  auto work = [&](unsigned w, Natural i, Natural, Natural) {
+    const Natural g = first_local + i * options.ranks;
+    const Natural seg_lo = segment_lo(g);
+    const Natural seg_hi = std::min(seg_lo + segment_size, options.to + 1);
     Worker& worker = *workers[w];
     worker.segment_lo = seg_lo;
     worker.summaries.clear();
@@ -102,10 +160,15 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
   };
 
   // Ordered part: apply summaries, rescan where a row or an event may fall.
-  auto commit = [&](unsigned w, Natural) {
+  auto commit = [&](unsigned w, Natural i) {
+    const Natural g = first_local + i * options.ranks;
+    if (g != 0 && last_committed != g - 1) load_checkpoint(options.await_checkpoint(g));
     Worker& worker = *workers[w];
+    scanned.assign(worker.summaries.size(), 0);
+    std::size_t block_index = 0;
     for (const BlockSummary& s : worker.summaries) {
-      SQFC_ASSERT(s.lo == state.n() + 1);  // summaries arrive in order, without gaps
+      if (s.lo != state.n() + 1) throw InternalError("block summaries out of order at n = " + std::to_string(s.lo));
+      total = merge_summaries(total, s);
       ++report.blocks;
       const auto next_sample = options.samples.next_at_or_after(s.lo);
       const bool has_sample = next_sample && *next_sample < s.hi;
@@ -114,6 +177,7 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
         state.apply(s);
       } else {
         ++report.scanned_blocks;
+        scanned[block_index] = 1;
         TrackerState expected = state;
         expected.apply(s);
         const arith::FactorCode* codes = worker.codes.data() + (s.lo - worker.segment_lo);
@@ -136,11 +200,17 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
         }
         checks.check_rescan(state == expected, s.hi - 1);
       }
+      ++block_index;
       if (progress) progress(s.hi - 1, options.to);
     }
+    last_committed = g;
+    const RunCheckpoint after{total, detector.records(), report.rows, report.events, report.blocks,
+                              report.scanned_blocks, checks.outcomes()};
+    const SegmentCommit done{g, segment_lo(g), state.n() + 1, &worker.summaries, &scanned, &after};
+    sink.on_segment_committed(done);
   };
 
-  arith::for_each_segment_ordered(1, options.to + 1, segment_size, worker_count, work, commit);
+  if (local_count > 0) arith::for_each_segment_ordered(0, local_count, 1, worker_count, work, commit);
   report.final_state = state;
   report.checks = checks.take();
   return report;

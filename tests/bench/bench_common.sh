@@ -119,7 +119,8 @@ bench_find_time_tool() {
 
 # bench_measure STDOUT_FILE CMD...: runs CMD with its stdout in STDOUT_FILE (stderr passes
 # through) and sets BENCH_WALL (seconds, from the monotonic clock around the command),
-# BENCH_PEAK_KIB (peak resident set, KiB) and BENCH_RC (exit status).
+# BENCH_PEAK_KIB (peak resident set, KiB), BENCH_CPU (user + system seconds of the command and
+# its children; only with GNU time, otherwise empty) and BENCH_RC (exit status).
 bench_measure() {
   local out="$1"
   shift
@@ -127,12 +128,14 @@ bench_measure() {
   local tfile t0 t1
   tfile="$(mktemp)"
   BENCH_PEAK_KIB=0
+  BENCH_CPU=""
   t0="$(date +%s%N)"
   if [ "$BENCH_TIME_TOOL" = gnu ]; then
     BENCH_RC=0
     /usr/bin/time -v -o "$tfile" "$@" >"$out" || BENCH_RC=$?
     t1="$(date +%s%N)"
     BENCH_PEAK_KIB="$(sed -n 's/^[[:space:]]*Maximum resident set size (kbytes): *//p' "$tfile")"
+    BENCH_CPU="$(awk -F': ' '/User time|System time/ { s += $2 } END { printf "%.3f", s }' "$tfile")"
   else
     "$@" >"$out" &
     local pid=$! hwm

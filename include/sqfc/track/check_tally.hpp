@@ -53,6 +53,22 @@ class CheckTally {
     }
     ++o.failed;
   }
+  /// The outcomes so far (for a checkpoint).
+  [[nodiscard]] const std::vector<CheckOutcome>& outcomes() const noexcept { return outcomes_; }
+  /// Continues the counts of a checkpoint. Pre: @p saved lists the same checks, by name and in
+  /// the order of add() (checked; returns false and changes nothing otherwise).
+  bool restore(const std::vector<CheckOutcome>& saved) {
+    if (saved.size() != outcomes_.size()) return false;
+    for (std::size_t i = 0; i < saved.size(); ++i)
+      if (saved[i].name != outcomes_[i].name) return false;
+    for (std::size_t i = 0; i < saved.size(); ++i) {
+      outcomes_[i].passed = saved[i].passed;
+      outcomes_[i].failed = saved[i].failed;
+      outcomes_[i].first_failure = saved[i].first_failure;
+      outcomes_[i].first_failure_detail = saved[i].first_failure_detail;
+    }
+    return true;
+  }
   /// The outcomes, moved out.
   std::vector<CheckOutcome> take() { return std::move(outcomes_); }
 

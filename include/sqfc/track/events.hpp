@@ -37,6 +37,16 @@ struct Event {
   friend bool operator==(const Event&, const Event&) = default;
 };
 
+/// The records an EventDetector keeps after some n: enough to continue a run from a checkpoint
+/// or on another process. The scaled records are exact pairs (M, n).
+struct EventRecords {
+  SignedSum high = 0, low = 0;  ///< max and min of M over [1, n]
+  SignedSum scaled_high_m = 0, scaled_low_m = 0;
+  Natural scaled_high_n = 0, scaled_low_n = 0;  ///< 0 before n reaches scaled_start
+  std::uint32_t face_dims_seen = 0, homology_dims_seen = 0;  ///< bit d: dimension d seen
+  friend bool operator==(const EventRecords&, const EventRecords&) = default;
+};
+
 /// Follows the running records and first appearances over consecutive n.
 /// Invariant: its records describe every n observed so far, and no event can occur inside a
 /// block that may_fire_in() rejected, so skipping such a block keeps the records exact.
@@ -44,6 +54,12 @@ class EventDetector {
  public:
   /// First n for the scaled records M(n)/sqrt(n).
   static constexpr Natural scaled_start = 200;
+
+  EventDetector() = default;
+  /// Continues from saved records (the cached doubles are recomputed exactly as observe() does).
+  explicit EventDetector(const EventRecords& saved);
+  /// The records after the last observed n. Complexity: O(1).
+  [[nodiscard]] EventRecords records() const noexcept;
 
   /// False only when no event can happen in block `s` after the state `before`.
   /// Conservative: true may still yield no event. Complexity: O(omega_slots).
