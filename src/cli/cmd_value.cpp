@@ -31,10 +31,11 @@ constexpr QuantityName quantity_names[] = {
     {Quantity::fredholm, "fredholm"}, {Quantity::faces, "faces"},           {Quantity::betti, "betti"},
 };
 
-// The default --what: what takes seconds at the largest x on two cores (measured December
-// 2026, docs/cli.md): L costs about 1.6 times M, the omega counts grow like x^(2/3) too.
-constexpr Natural default_liouville_limit = 100'000'000'000'000ULL;   // 10^14
-constexpr Natural default_omega_limit = 10'000'000'000ULL;            // 10^10
+// The default --what: what takes a few seconds at the largest x on two cores (measured
+// December 2026, docs/cli.md): M(10^13) 2.2 s of CPU and L about 1.6 times that; the omega
+// counts 1.3 s of CPU at 10^12.
+constexpr Natural default_liouville_limit = 10'000'000'000'000ULL;   // 10^13
+constexpr Natural default_omega_limit = 1'000'000'000'000ULL;        // 10^12
 
 Natural bound_of(Quantity q) {
   switch (q) {

@@ -56,6 +56,18 @@ TEST(ValueCommand, FacesAndBettiEqualTheTableAt1e6And1e7) {
   }
 }
 
+TEST(ValueCommand, DefaultWhatAtSmallXIsEverything) {
+  ScratchDir dir;
+  const auto r = run_sqfc(dir, {"value", "1000", "--out", "-"});
+  ASSERT_EQ(r.exit_code, 0) << describe(r);
+  const auto lines = split_lines(r.out);
+  ASSERT_GE(lines.size(), 2U);
+  EXPECT_EQ(lines[0], "n,mertens,squarefree,liouville,fredholm,f0,f1,f2,f3,b0,b1,b2,b3");
+  // M(1000) = 2 (OEIS A084237), Q(1000) = 608 (OEIS A071172); the rest equals `sqfc table` (test above).
+  EXPECT_EQ(split_fields(lines[1])[1], "2");
+  EXPECT_EQ(split_fields(lines[1])[2], "608");
+}
+
 TEST(ValueCommand, FormatsAndManifest) {
   ScratchDir dir;
   const auto r = run_sqfc(dir, {"value", "1e6", "10^5", "--what", "mertens,fredholm", "--format", "jsonl", "--out", "v.jsonl"});
