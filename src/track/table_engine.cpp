@@ -23,6 +23,7 @@ struct Worker {
   arith::SegmentedSieve sieve;
   std::vector<arith::FactorCode> codes;   // factor codes of the current segment
   std::vector<BlockSummary> summaries;    // one per block of the current segment
+  std::vector<EnvelopePieceExtras> extras;  // one per summary when an envelope is built
   Natural segment_lo = 0;
 };
 
@@ -81,6 +82,8 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
   TrackerState state;
   EventDetector detector;
   RowChecks checks;
+  std::unique_ptr<EnvelopeBuilder> envelope;
+  if (options.envelope) envelope = std::make_unique<EnvelopeBuilder>(*options.envelope);
 
   // Parallel part: sieve the segment block by block, keep the codes, summarise each block
   // while it is still in cache.
@@ -88,11 +91,21 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
     Worker& worker = *workers[w];
     worker.segment_lo = seg_lo;
     worker.summaries.clear();
+    worker.extras.clear();
     worker.sieve.reset(seg_lo, seg_hi);
     for (Natural lo = seg_lo;; lo += worker.sieve.last_size()) {
       arith::FactorCode* out = worker.codes.data() + (lo - seg_lo);
       if (!worker.sieve.next_block_codes(out)) break;
-      worker.summaries.push_back(summarize_codes(worker.sieve.last_lo(), out, worker.sieve.last_size()));
+      if (!envelope) {
+        worker.summaries.push_back(summarize_codes(worker.sieve.last_lo(), out, worker.sieve.last_size()));
+        continue;
+      }
+      // Envelope pieces never straddle a pixel column, so their summaries bound each column.
+      const Natural block_lo = worker.sieve.last_lo();
+      envelope->for_each_piece(block_lo, worker.sieve.last_size(), [&](std::size_t offset, std::size_t count) {
+        worker.summaries.push_back(summarize_codes(block_lo + offset, out + offset, count));
+        worker.extras.push_back(envelope->summarize_piece(block_lo + offset, out + offset, count));
+      });
     }
   };
 
@@ -104,8 +117,11 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
   // Ordered part: apply summaries, rescan where a row or an event may fall.
   auto commit = [&](unsigned w, Natural) {
     Worker& worker = *workers[w];
-    for (const BlockSummary& s : worker.summaries) {
+    for (std::size_t index = 0; index < worker.summaries.size(); ++index) {
+      const BlockSummary& s = worker.summaries[index];
       SQFC_ASSERT(s.lo == state.n() + 1);  // summaries arrive in order, without gaps
+      if (envelope)
+        envelope->add_piece(state, s, worker.extras[index], worker.codes.data() + (s.lo - worker.segment_lo));
       ++report.blocks;
       const auto next_sample = options.samples.next_at_or_after(s.lo);
       const bool has_sample = next_sample && *next_sample < s.hi;
@@ -142,6 +158,7 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
 
   arith::for_each_segment_ordered(1, options.to + 1, segment_size, worker_count, work, commit);
   report.final_state = state;
+  if (envelope) report.envelope = envelope->take();
   report.checks = checks.take();
   return report;
 }

@@ -4,12 +4,14 @@
 
 #include <cstddef>
 #include <functional>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "sqfc/core/config.hpp"
 #include "sqfc/core/types.hpp"
 #include "sqfc/track/check_tally.hpp"
+#include "sqfc/track/envelope.hpp"
 #include "sqfc/track/events.hpp"
 #include "sqfc/track/sample_schedule.hpp"
 #include "sqfc/track/tracker_state.hpp"
@@ -26,6 +28,8 @@ struct TableRunOptions {
   SampleSchedule samples;
   bool events = false;  ///< detect events
   bool self_checks = true;  ///< run the per-row identity checks
+  /// Build per-pixel-column extremes (envelope.hpp); blocks are then split at its boundaries.
+  std::optional<EnvelopeOptions> envelope;
 };
 
 /// Receives the output of a run, in increasing n, always from one thread at a time.
@@ -45,6 +49,7 @@ struct TableRunReport {
   Count blocks = 0;
   Count scanned_blocks = 0;  ///< blocks that needed the per-n pass (samples or possible events)
   std::vector<CheckOutcome> checks;
+  std::optional<Envelope> envelope;  ///< when TableRunOptions::envelope was set
   [[nodiscard]] bool all_checks_passed() const;
 };
 
