@@ -12,6 +12,7 @@
 #include "sqfc/core/error.hpp"
 #include "sqfc/core/number_parse.hpp"
 #include "sqfc/io/atomic_file.hpp"
+#include "sqfc/io/envelope_file.hpp"
 #include "sqfc/io/manifest.hpp"
 
 namespace sqfc::cli {
@@ -50,6 +51,7 @@ void reject_shared_paths(const TableJob& job) {
   };
   add_with_manifest(job.out, "--out");
   if (job.events_path) add_with_manifest(*job.events_path, "--events");
+  if (job.envelope_path) add(*job.envelope_path, job.plot ? "the envelope of --plot" : "--envelope");
   for (std::size_t i = 0; i < files.size(); ++i)
     for (std::size_t j = i + 1; j < files.size(); ++j)
       if (files[i].first == files[j].first)
@@ -80,6 +82,13 @@ void add_table_command(CLI::App& app, TableArguments& a) {
   cmd->add_option_function<std::string>(
       "--block-size", [&a](const std::string& v) { a.block_size = v; }, "sieve block size in values (default 2^17)");
   cmd->add_flag("--quiet,-q", a.quiet, std::string("no progress bar"));
+  a.plot_option = cmd->add_option("--plot", a.plot_list,
+                                  "draw pictures from a per-pixel envelope built during the run, beside the table; "
+                                  "optional comma list of kinds (mertens, scaled, betti, faces, fredholm) and formats (png, svg, pdf)")
+                      ->expected(0, 1);
+  cmd->add_option_function<std::string>(
+      "--envelope", [&a](const std::string& v) { a.envelope = v; }, "write the per-pixel-column envelope to this CSV file");
+  add_plot_look_options(*cmd, a.plot_look, false);
 }
 
 TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
@@ -124,6 +133,38 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
     run.events = true;
   }
   job.quiet = a.quiet;
+  const bool plot = a.plot_option && a.plot_option->count() > 0;
+  if (a.envelope && a.envelope->empty()) throw InvalidArgument("--envelope: empty path");
+  if (plot || a.envelope) {
+    io::PlotRequest request;
+    apply_plot_look(a.plot_look, request, false);
+    track::EnvelopeOptions envelope{run.from, run.to, request.width, request.log_x, true};
+    if (plot) {
+      if (job.out == "-" && !a.envelope)
+        throw InvalidArgument("--plot draws beside the table file; give --out FILE (not -) or --envelope FILE");
+      const auto choice = parse_plot_choice(a.plot_list, "--plot");
+      for (const auto k : choice.kinds)
+        if (k == io::PlotKind::barcode || k == io::PlotKind::diagram || k == io::PlotKind::green)
+          throw InvalidArgument("--plot: sqfc table cannot draw '" + std::string(io::plot_kind_name(k)) +
+                                "' (use sqfc homology --plot or sqfc fredholm --plot)");
+      request.kinds = choice.kinds;
+      if (!choice.formats.empty()) request.formats = choice.formats;
+      const std::string prefix = plot_prefix_beside(a.envelope ? *a.envelope : job.out);
+      request.prefix = prefix;
+      request.input = a.envelope ? *a.envelope : prefix + ".envelope.csv";
+      request.input_kind = io::PlotInput::envelope;
+      if (job.events_path && *job.events_path != "-") request.events = *job.events_path;
+      // Betti extremes cost a per-n pass in the sieve phase; skip it when no picture needs them.
+      envelope.betti = a.envelope || request.kinds.empty() ||
+                       std::find(request.kinds.begin(), request.kinds.end(), io::PlotKind::betti) != request.kinds.end();
+      io::check_gnuplot(request.gnuplot);  // before the run, not after it
+      job.envelope_path = request.input;
+      job.plot = request;
+    } else {
+      job.envelope_path = *a.envelope;
+    }
+    run.envelope = envelope;
+  }
   reject_shared_paths(job);
   return job;
 }
@@ -140,6 +181,8 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
                                                                                   : "";
   std::unique_ptr<io::AtomicOutputFile> manifest_probe;
   if (!manifest_path.empty()) manifest_probe = std::make_unique<io::AtomicOutputFile>(manifest_path);
+  std::unique_ptr<io::AtomicOutputFile> envelope_file;
+  if (job.envelope_path) envelope_file = std::make_unique<io::AtomicOutputFile>(*job.envelope_path);
 
   io::TableWriter table_writer(table_file.stream(), job.format, job.columns, job.bfile_comments);
   std::unique_ptr<io::EventWriter> event_writer;
@@ -155,6 +198,12 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
   bar.finish();
   table_file.commit();
   if (events_file) events_file->commit();
+  if (envelope_file) {
+    io::write_envelope(envelope_file->stream(), *result.report.envelope, std::max(0, complex::max_face_dimension(job.run.to)));
+    envelope_file->commit();
+  }
+  if (job.plot)
+    for (const auto& o : io::make_plots(*job.plot)) result.pictures.insert(result.pictures.end(), o.pictures.begin(), o.pictures.end());
   result.wall_seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - clock_start).count();
 
   if (!manifest_path.empty()) {
@@ -180,12 +229,22 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
     io::Json outputs;
     outputs.set("table", job.out);
     if (job.events_path) outputs.set("events", *job.events_path);
+    if (job.envelope_path) outputs.set("envelope", *job.envelope_path);
+    if (job.plot) {
+      io::Json pictures = io::Json::Array{};
+      for (const auto& p : result.pictures) pictures.push(p);
+      outputs.set("pictures", std::move(pictures));
+    }
     m.set("outputs", std::move(outputs));
     io::Json counts;
     counts.set("rows", r.rows);
     counts.set("events", r.events);
     counts.set("blocks", r.blocks);
     counts.set("scanned_blocks", r.scanned_blocks);
+    if (r.envelope) {
+      counts.set("envelope_columns", static_cast<std::uint64_t>(r.envelope->columns.size()));
+      counts.set("envelope_scanned_values", r.envelope->scanned_values);
+    }
     m.set("counts", std::move(counts));
     m.set("checks", io::checks_to_json(r.checks));
     m.set("checks_passed", r.all_checks_passed());

@@ -7,12 +7,14 @@
 #include <vector>
 
 #include "cli_support.hpp"
+#include "plot_support.hpp"
 #include "sqfc/io/columns.hpp"
 #include "sqfc/io/table_writer.hpp"
 #include "sqfc/track/table_engine.hpp"
 
 namespace CLI {
 class App;
+class Option;
 }
 
 namespace sqfc::cli {
@@ -23,6 +25,11 @@ struct TableArguments {
   std::string to, from = "1", format = "csv";
   std::optional<std::string> every, at, log, columns, out, events, threads, block_size;
   bool quiet = false;
+  // Pictures: --plot [LIST] (kinds and formats), --envelope FILE, and the look options.
+  std::string plot_list;
+  CLI::Option* plot_option = nullptr;
+  std::optional<std::string> envelope;
+  PlotLookArguments plot_look;
 };
 
 /// A validated table job.
@@ -35,6 +42,8 @@ struct TableJob {
   bool quiet = false;
   std::vector<std::string> bfile_comments;
   std::string label = "table";   ///< progress-bar label
+  std::optional<std::string> envelope_path;  ///< envelope file (--envelope, or beside the table with --plot)
+  std::optional<io::PlotRequest> plot;        ///< pictures drawn from the envelope after the run
 };
 
 /// What a finished job wrote and found.
@@ -42,6 +51,7 @@ struct TableJobResult {
   track::TableRunReport report;
   std::string manifest_path;  ///< empty when no manifest was written
   double wall_seconds = 0;
+  std::vector<std::string> pictures;
 };
 
 void add_table_command(CLI::App& app, TableArguments& args);

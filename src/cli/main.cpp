@@ -12,6 +12,7 @@
 #include "cmd_face.hpp"
 #include "cmd_fredholm.hpp"
 #include "cmd_homology.hpp"
+#include "cmd_plot.hpp"
 #include "cmd_table.hpp"
 #include "sqfc/core/error.hpp"
 #include "sqfc/core/version.hpp"
@@ -47,6 +48,8 @@ int main(int argc, char** argv) {
   sqfc::cli::add_complex_command(app, complex_args);
   sqfc::cli::HomologyArguments homology_args;
   sqfc::cli::add_homology_command(app, homology_args);
+  sqfc::cli::PlotArguments plot_args;
+  sqfc::cli::add_plot_command(app, plot_args);
 
   std::string command = "sqfc";
   sqfc::cli::install_interrupt_handlers();
@@ -56,7 +59,7 @@ int main(int argc, char** argv) {
     bool known = false;
     for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, fredholm, homology, face, complex, check, demo; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, fredholm, homology, face, complex, check, plot, demo; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }
@@ -79,6 +82,7 @@ int main(int argc, char** argv) {
     if (app.got_subcommand("face")) return sqfc::cli::run_face_command(face_args, invocation);
     if (app.got_subcommand("complex")) return sqfc::cli::run_complex_command(complex_args, invocation);
     if (app.got_subcommand("homology")) return sqfc::cli::run_homology_command(homology_args, invocation);
+    if (app.got_subcommand("plot")) return sqfc::cli::run_plot_command(plot_args, invocation);
     std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
     return sqfc::exit_code::bad_input;
   } catch (const sqfc::Error& e) {
