@@ -343,7 +343,10 @@ Picture line_picture(PlotKind kind, const PlotRequest& r, PlotInput input, const
     }
   };
 
-  if (envelope) {
+  const bool events_only = input == PlotInput::events;
+  if (events_only) {
+    source_note = "events only (no table)";
+  } else if (envelope) {
     const auto info = read_envelope_info(r.input);
     series_for(info.header, "_min");
     TableReader t(r.input);
@@ -406,17 +409,22 @@ Picture line_picture(PlotKind kind, const PlotRequest& r, PlotInput input, const
     }
     source_note = count_text(rows) + " sample points from " + file_name(r.input);
   }
-  if (rows == 0) throw InvalidArgument("'" + r.input + "' has no rows: nothing to plot");
+  if (rows == 0 && !events_only) throw InvalidArgument("'" + r.input + "' has no rows: nothing to plot");
 
   std::optional<Markers> markers;
-  if (r.events && (kind == PlotKind::mertens || kind == PlotKind::scaled)) markers = read_markers(*r.events, r.log_x, r.width, x);
+  if (r.events && (kind == PlotKind::mertens || kind == PlotKind::scaled))
+    markers = read_markers(*r.events, r.log_x, r.width, events_only ? std::nullopt : std::optional<Range>(x));
+  if (events_only) {
+    if (markers->n_range.empty) throw InvalidArgument("'" + r.input + "' has no events: nothing to plot");
+    x = markers->n_range;
+  }
 
   const double x_lo = std::max(x.lo, 1.0), x_hi = std::max(x.hi, x_lo + 1);
   f.x_range = range_text(x_lo, x_hi);
   if (!r.log_x && x_hi >= 1e6) f.x_format = "%.1t·10^{%T}";
   // M and M/sqrt(n): the data fill the height; the guides are clipped.
-  if ((kind == PlotKind::mertens || kind == PlotKind::scaled) && !y.empty) {
-    double extent = std::max({std::abs(y.lo), std::abs(y.hi), kind == PlotKind::scaled ? 0.2 : 1.0});
+  if ((kind == PlotKind::mertens || kind == PlotKind::scaled) && (!y.empty || markers)) {
+    double extent = std::max({y.empty ? 0.0 : std::abs(y.lo), y.empty ? 0.0 : std::abs(y.hi), kind == PlotKind::scaled ? 0.2 : 1.0});
     if (markers)
       for (const auto* list : {&markers->highs, &markers->lows, &markers->scaled_highs, &markers->scaled_lows})
         for (const auto& point : *list) {
@@ -441,15 +449,16 @@ Picture line_picture(PlotKind kind, const PlotRequest& r, PlotInput input, const
     case PlotKind::mertens:
       f.title = "Mertens function M(n), n ≤ " + N;
       f.y_label = "M(n)";
-      clauses.push_back(envelope ? band(0, "series", "M(n), min–max per column") : step_line(2, "series", "M(n)"));
+      if (!events_only) clauses.push_back(envelope ? band(0, "series", "M(n), min–max per column") : step_line(2, "series", "M(n)"));
       clauses.push_back("sqrt(x) with lines dt (6,4) lw 1.4 lc rgb guide title \"±√n\"");
       clauses.push_back("-sqrt(x) with lines dt (6,4) lw 1.4 lc rgb guide notitle");
       break;
     case PlotKind::scaled:
       f.title = "Scaled Mertens function M(n)/√n, n ≤ " + N;
       f.y_label = "M(n)/√n";
-      clauses.push_back(envelope ? band(0, "series", "M(n)/√n, min–max per column")
-                                 : step_line(0, "series", "M(n)/√n", "($2/sqrt($1))"));
+      if (!events_only)
+        clauses.push_back(envelope ? band(0, "series", "M(n)/√n, min–max per column")
+                                   : step_line(0, "series", "M(n)/√n", "($2/sqrt($1))"));
       clauses.push_back("1 with lines dt (6,4) lw 1.4 lc rgb guide title \"±1\"");
       clauses.push_back("-1 with lines dt (6,4) lw 1.4 lc rgb guide notitle");
       clauses.push_back("0 with lines lw 1 lc rgb ink notitle");
