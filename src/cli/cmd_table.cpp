@@ -137,7 +137,7 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
   if (a.envelope && a.envelope->empty()) throw InvalidArgument("--envelope: empty path");
   if (plot || a.envelope) {
     io::PlotRequest request;
-    apply_plot_look(a.plot_look, request, false);
+    apply_plot_look(a.plot_look, request, false, plot ? 200 : 1);
     track::EnvelopeOptions envelope{run.from, run.to, request.width, request.log_x, true};
     if (plot) {
       if (job.out == "-" && !a.envelope)

@@ -56,9 +56,9 @@ void add_plot_look_options(CLI::App& cmd, PlotLookArguments& a, bool bare) {
                                        "the gnuplot program (default: gnuplot from PATH)");
 }
 
-void apply_plot_look(const PlotLookArguments& a, io::PlotRequest& r, bool bare) {
+void apply_plot_look(const PlotLookArguments& a, io::PlotRequest& r, bool bare, unsigned min_width) {
   const std::string p = bare ? "--" : "--plot-";
-  if (a.width) r.width = static_cast<unsigned>(parse_number_option(*a.width, p + "width", 200, 20000));
+  if (a.width) r.width = static_cast<unsigned>(parse_number_option(*a.width, p + "width", min_width, 20000));
   if (a.height) r.height = static_cast<unsigned>(parse_number_option(*a.height, p + "height", 150, 20000));
   r.log_x = a.log_x;
   r.log_y = !a.linear_y;

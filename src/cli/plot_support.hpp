@@ -35,8 +35,9 @@ struct PlotLookArguments {
 /// Adds --plot-width, --plot-height, --plot-log-x, --plot-linear-y, --gnuplot (prefix "plot-"
 /// is dropped for `sqfc plot` itself when `bare` is true: --width, --height, --log-x, --linear-y).
 void add_plot_look_options(CLI::App& cmd, PlotLookArguments& a, bool bare);
-/// Copies the look into a request. Throws: InvalidArgument for bad sizes.
-void apply_plot_look(const PlotLookArguments& a, io::PlotRequest& request, bool bare);
+/// Copies the look into a request. The width must lie in [min_width, 20000] (pictures need 200;
+/// an envelope without pictures may have fewer columns). Throws: InvalidArgument for bad sizes.
+void apply_plot_look(const PlotLookArguments& a, io::PlotRequest& request, bool bare, unsigned min_width = 200);
 
 /// "<path without its extension>": the prefix of the pictures drawn beside an output file.
 std::string plot_prefix_beside(const std::string& output_path);

@@ -840,6 +840,7 @@ std::vector<PlotOutput> make_plots(const PlotRequest& request) {
   if (r.kinds.empty()) r.kinds = supported_plot_kinds(r.input, input);
   const fs::path prefix(r.prefix);
   const fs::path folder = prefix.has_parent_path() ? prefix.parent_path() : fs::path(".");
+  const fs::path shown = prefix.parent_path();  // reported paths: as the prefix was given, no "./" added
   ensure_directory(folder.string());
   std::vector<PlotOutput> outputs;
   for (const auto kind : r.kinds) {
@@ -857,8 +858,8 @@ std::vector<PlotOutput> make_plots(const PlotRequest& request) {
     }
     PlotOutput out;
     out.kind = kind;
-    out.data = (folder / (stem + ".dat")).string();
-    out.script = (folder / (stem + ".gp")).string();
+    out.data = (shown / (stem + ".dat")).string();
+    out.script = (shown / (stem + ".gp")).string();
     AtomicOutputFile data(out.data), script(out.script);
     data.stream() << p.data;
     script.stream() << p.script;
@@ -881,7 +882,7 @@ std::vector<PlotOutput> make_plots(const PlotRequest& request) {
       }
       fs::rename(temp_path, folder / picture, ec);
       if (ec) throw IoError("cannot rename " + temp_path.string() + ": " + ec.message());
-      out.pictures.push_back((folder / picture).string());
+      out.pictures.push_back((shown / picture).string());
     }
     outputs.push_back(std::move(out));
   }
