@@ -88,6 +88,8 @@ void add_table_command(CLI::App& app, TableArguments& a) {
                       ->expected(0, 1);
   cmd->add_option_function<std::string>(
       "--envelope", [&a](const std::string& v) { a.envelope = v; }, "write the per-pixel-column envelope to this CSV file");
+  cmd->add_flag("--envelope-betti", a.envelope_betti,
+                std::string("also keep the Betti extremes in the envelope (a per-n pass; --plot betti implies it)"));
   add_plot_look_options(*cmd, a.plot_look, false);
 }
 
@@ -135,6 +137,7 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
   job.quiet = a.quiet;
   const bool plot = a.plot_option && a.plot_option->count() > 0;
   if (a.envelope && a.envelope->empty()) throw InvalidArgument("--envelope: empty path");
+  if (a.envelope_betti && !plot && !a.envelope) throw InvalidArgument("--envelope-betti needs --envelope or --plot");
   if (plot || a.envelope) {
     io::PlotRequest request;
     apply_plot_look(a.plot_look, request, false, plot ? 200 : 1);
@@ -154,14 +157,18 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
       request.input = a.envelope ? *a.envelope : prefix + ".envelope.csv";
       request.input_kind = io::PlotInput::envelope;
       if (job.events_path && *job.events_path != "-") request.events = *job.events_path;
-      // Betti extremes cost a per-n pass in the sieve phase; skip it when no picture needs them.
-      envelope.betti = a.envelope || request.kinds.empty() ||
-                       std::find(request.kinds.begin(), request.kinds.end(), io::PlotKind::betti) != request.kinds.end();
+      // Betti extremes cost a per-n pass in the sieve phase (docs/plots.md has the measured
+      // cost): built only when the betti picture is asked for by name.
+      const bool betti = std::find(request.kinds.begin(), request.kinds.end(), io::PlotKind::betti) != request.kinds.end();
+      if (request.kinds.empty())
+        request.kinds = {io::PlotKind::mertens, io::PlotKind::scaled, io::PlotKind::faces, io::PlotKind::fredholm};
+      envelope.betti = betti || a.envelope_betti;
       io::check_gnuplot(request.gnuplot);  // before the run, not after it
       job.envelope_path = request.input;
       job.plot = request;
     } else {
       job.envelope_path = *a.envelope;
+      envelope.betti = a.envelope_betti;
     }
     run.envelope = envelope;
   }

@@ -29,6 +29,7 @@ struct TableArguments {
   std::string plot_list;
   CLI::Option* plot_option = nullptr;
   std::optional<std::string> envelope;
+  bool envelope_betti = false;
   PlotLookArguments plot_look;
 };
 

@@ -815,6 +815,10 @@ void check_plot_request(const PlotRequest& r) {
   const PlotInput input = r.input_kind.value_or(detect_plot_input(r.input));
   const auto supported = supported_plot_kinds(r.input, input);
   for (const auto k : r.kinds)
+    if (k == PlotKind::betti && input == PlotInput::envelope &&
+        std::find(supported.begin(), supported.end(), k) == supported.end())
+      throw InvalidArgument("the envelope file '" + r.input + "' has no Betti extremes (make it with sqfc table --plot betti or --envelope-betti)");
+  for (const auto k : r.kinds)
     if (std::find(supported.begin(), supported.end(), k) == supported.end())
       throw InvalidArgument("picture kind '" + std::string(plot_kind_name(k)) + "' cannot be drawn from the " +
                             std::string(plot_input_name(input)) + " file '" + r.input + "'");

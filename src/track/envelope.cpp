@@ -21,7 +21,7 @@ constexpr int betti_slots = config::omega_slots - 1;
 // enters the interval counts at w, an even one 2m lets m (omega w - 1) leave (identity 2,
 // incremental form); count index 0 enters b_0 with a minus sign (betti_counting.hpp).
 struct BettiStep {
-  std::int8_t dimension = -1;  // -1: no Betti number changes
+  std::int8_t dimension = config::omega_slots - 1;  // the unused slot 15: no Betti number changes
   std::int8_t delta = 0;
 };
 constexpr std::array<std::array<BettiStep, arith::factor_code_count>, 2> make_betti_steps() {
@@ -43,15 +43,16 @@ constexpr std::array<std::array<BettiStep, arith::factor_code_count>, 2> make_be
 }
 constexpr auto betti_steps = make_betti_steps();
 
+constexpr std::array<int, arith::factor_code_count> make_mu_table() {
+  std::array<int, arith::factor_code_count> t{};
+  for (int c = 0; c < arith::factor_code_count; ++c) t[c] = arith::code_mu(static_cast<arith::FactorCode>(c));
+  return t;
+}
+constexpr auto mu_of_code = make_mu_table();
+
 // D(n) flips at each squarefree k >= 2 with mu(k) = +1, i.e. omega(k) even and >= 2.
 constexpr bool flips_fredholm(arith::FactorCode code) noexcept {
   return arith::code_is_squarefree(code) && arith::code_omega(code) >= 2 && arith::code_omega(code) % 2 == 0;
-}
-
-int fredholm_of(const TrackerState& s) noexcept {
-  Count positive = 0;
-  for (int w = 2; w < config::omega_slots; w += 2) positive += s.odd_squarefree()[w] + s.even_squarefree()[w];
-  return positive % 2 == 0 ? 1 : -1;
 }
 
 Count fredholm_flips(const BlockSummary& s) noexcept {
@@ -99,26 +100,55 @@ EnvelopeBuilder::EnvelopeBuilder(const EnvelopeOptions& options)
   columns_.resize(axis_.columns());
 }
 
+namespace {
+
+// Conditional moves rather than branches: new extremes come at unpredictable n. Strict
+// comparisons keep first positions, non-strict ones last positions.
+inline void track_mertens(EnvelopePieceExtras& x, SignedSum v, Natural n) noexcept {
+  const bool up = v > x.m_high, down = v < x.m_low;
+  x.m_high = up ? v : x.m_high;
+  x.m_high_n = up ? n : x.m_high_n;
+  x.m_low = down ? v : x.m_low;
+  x.m_low_n = down ? n : x.m_low_n;
+  x.m_high_last_n = v == x.m_high ? n : x.m_high_last_n;
+  x.m_low_last_n = v == x.m_low ? n : x.m_low_last_n;
+}
+
+void start_mertens(EnvelopePieceExtras& x, SignedSum first, Natural lo) noexcept {
+  x.has_mertens = true;
+  x.m_low = x.m_high = first;
+  x.m_low_n = x.m_high_n = x.m_low_last_n = x.m_high_last_n = lo;
+}
+
+}  // namespace
+
 EnvelopePieceExtras EnvelopeBuilder::summarize_piece(Natural lo, const arith::FactorCode* codes, std::size_t count) const {
   EnvelopePieceExtras x;
-  if (!options_.betti || count == 0) return x;
-  std::array<std::int32_t, config::omega_slots> value{};
+  if (count == 0 || !options_.betti) return x;
   // n = lo itself: every prefix starts there, so the extremes start from its values.
+  SignedSum m = mu_of_code[codes[0]];
+  start_mertens(x, m, lo);
+  std::array<std::int32_t, config::omega_slots> value{};
   const BettiStep first = betti_steps[lo & 1][codes[0]];
-  if (first.dimension >= 0) value[first.dimension] = first.delta;
+  value[static_cast<std::size_t>(first.dimension)] += first.delta;
   x.low = value;
   x.high = value;
   x.low_n.fill(lo);
   x.high_n.fill(lo);
   for (std::size_t i = 1; i < count; ++i) {
     const Natural n = lo + i;
-    const BettiStep step = betti_steps[n & 1][codes[i]];
-    if (step.dimension < 0) continue;
-    const int d = step.dimension;
+    const arith::FactorCode code = codes[i];
+    m += mu_of_code[code];
+    track_mertens(x, m, n);
+    // n that change no Betti number step the unused slot 15 by 0 (no branch).
+    const BettiStep step = betti_steps[n & 1][code];
+    const auto d = static_cast<std::size_t>(step.dimension);
     const std::int32_t v = value[d] += step.delta;
-    // Strict comparisons keep the first n that attains each extreme.
-    if (v > x.high[d]) x.high[d] = v, x.high_n[d] = n;
-    if (v < x.low[d]) x.low[d] = v, x.low_n[d] = n;
+    const bool b_up = v > x.high[d], b_down = v < x.low[d];
+    x.high[d] = b_up ? v : x.high[d];
+    x.high_n[d] = b_up ? n : x.high_n[d];
+    x.low[d] = b_down ? v : x.low[d];
+    x.low_n[d] = b_down ? n : x.low_n[d];
   }
   return x;
 }
@@ -161,7 +191,7 @@ void EnvelopeBuilder::finish_column(const TrackerState& before, const BlockSumma
   ++current_;
 }
 
-void EnvelopeBuilder::add_piece(const TrackerState& before, const BlockSummary& s, const EnvelopePieceExtras& extras,
+void EnvelopeBuilder::add_piece(const TrackerState& before, const BlockSummary& s, const EnvelopePieceExtras& given,
                                 const arith::FactorCode* codes) {
   if (s.empty() || s.hi <= options_.first || s.lo > options_.last) return;
   SQFC_ASSERT(current_ < columns_.size());
@@ -169,58 +199,121 @@ void EnvelopeBuilder::add_piece(const TrackerState& before, const BlockSummary& 
   const bool column_start = s.lo == axis_.column_start(current_);
   if (column_start) start_column(before, codes);
   EnvelopeColumn& c = columns_[current_];
+  const std::size_t count = s.hi - s.lo;
 
-  // M: the summary gives the exact range of M over the piece; only a new extreme needs its
-  // position, found by a scan that stops once it has it.
+  // M: exact extremes with their first and last positions from the parallel phase, or from a
+  // scan here when the summary says the piece may change an extreme of M or M(n)/sqrt(n).
   const SignedSum m0 = before.mertens();
-  const SignedSum high = m0 + s.prefix_high, low = m0 + s.prefix_low;
-  bool need_high = high > c.mertens.max, need_low = low < c.mertens.min;
-
-  // M(n)/sqrt(n): bounds from the range of M; a small slack keeps the floating-point test
-  // conservative (the exact comparison happens in the scan).
   const double root_lo = std::sqrt(static_cast<double>(s.lo)), root_hi = std::sqrt(static_cast<double>(s.hi - 1));
-  const double upper = high >= 0 ? static_cast<double>(high) / root_lo : static_cast<double>(high) / root_hi;
-  const double lower = low <= 0 ? static_cast<double>(low) / root_lo : static_cast<double>(low) / root_hi;
+  // Floating-point slack keeps every test below conservative; decisions are exact (compare_scaled).
   constexpr double slack = 1e-9;
-  double scaled_max = scaled_value(c.scaled.max, c.scaled.max_n), scaled_min = scaled_value(c.scaled.min, c.scaled.min_n);
-  const bool scan_scaled = upper > scaled_max - slack || lower < scaled_min + slack;
+  // Necessary for m/sqrt(n) > s_max with n in the piece: m > s_max * sqrt(lo) when s_max >= 0,
+  // m > s_max * sqrt(hi - 1) otherwise; symmetrically for the minimum.
+  SignedSum above = 0, below = 0;
+  auto thresholds = [&] {
+    const double s_max = scaled_value(c.scaled.max, c.scaled.max_n), s_min = scaled_value(c.scaled.min, c.scaled.min_n);
+    const double x = s_max * (s_max >= 0 ? root_lo : root_hi), y = s_min * (s_min <= 0 ? root_lo : root_hi);
+    above = static_cast<SignedSum>(std::floor(x - slack * (1 + std::abs(x))));
+    below = static_cast<SignedSum>(std::ceil(y + slack * (1 + std::abs(y))));
+  };
+  EnvelopePieceExtras scanned;
+  const EnvelopePieceExtras* found = &given;
+  if (!given.has_mertens) {
+    thresholds();
+    // Which positions can matter: the first n of a new M record; for M(n)/sqrt(n) the first n of
+    // a level m >= 0 (earlier is larger) or the last n of a level m < 0 (later is larger), and
+    // the mirror image for the minimum. Scans stop as soon as they have what they need.
+    const SignedSum ph = m0 + s.prefix_high, pl = m0 + s.prefix_low;
+    const bool high_first = ph > c.mertens.max || (ph > above && ph >= 0), high_last = ph > above && ph < 0;
+    const bool low_first = pl < c.mertens.min || (pl < below && pl <= 0), low_last = pl < below && pl > 0;
+    if (!(high_first || high_last || low_first || low_last)) {
+      found = nullptr;  // nothing in this piece can change a column extreme of M or M(n)/sqrt(n)
+    } else {
+      start_mertens(scanned, 0, 0);
+      scanned.m_high = s.prefix_high, scanned.m_low = s.prefix_low;
+      Natural hf = 0, hl = 0, lf = 0, ll = 0;
+      SignedSum p = 0;
+      for (std::size_t i = 0; i < count && ((high_first && !hf) || (low_first && !lf)); ++i) {
+        p += mu_of_code[codes[i]];
+        if (p == s.prefix_high && !hf) hf = s.lo + i;
+        if (p == s.prefix_low && !lf) lf = s.lo + i;
+        ++scanned_;
+      }
+      p = s.mertens;  // P(hi - 1); walking down, P(n - 1) = P(n) - mu(n)
+      for (std::size_t i = count; i-- > 0 && ((high_last && !hl) || (low_last && !ll));) {
+        if (p == s.prefix_high && !hl) hl = s.lo + i;
+        if (p == s.prefix_low && !ll) ll = s.lo + i;
+        p -= mu_of_code[codes[i]];
+        ++scanned_;
+      }
+      // A position not looked for stands in for its partner (offering it twice is harmless);
+      // the M record test below only uses first positions, which are found when it can fire.
+      scanned.m_high_n = hf ? hf : hl;
+      scanned.m_high_last_n = hl ? hl : hf;
+      scanned.m_low_n = lf ? lf : ll;
+      scanned.m_low_last_n = ll ? ll : lf;
+      if (!scanned.m_high_n) scanned.m_high_n = scanned.m_high_last_n = scanned.m_low_n ? scanned.m_low_n : scanned.m_low_last_n, scanned.m_high = s.prefix_low;
+      if (!scanned.m_low_n) scanned.m_low_n = scanned.m_low_last_n = scanned.m_high_n, scanned.m_low = scanned.m_high;
+      found = &scanned;
+    }
+  }
+  if (found != nullptr) {
+  const EnvelopePieceExtras& extras = *found;
+  const SignedSum high = m0 + extras.m_high, low = m0 + extras.m_low;
+  if (high > c.mertens.max) c.mertens.max = high, c.mertens.max_n = extras.m_high_n;
+  if (low < c.mertens.min) c.mertens.min = low, c.mertens.min_n = extras.m_low_n;
+
+  // M(n)/sqrt(n). Over the n of one level m, m/sqrt(n) is extreme at the level's first or last
+  // n in the piece, so offering the first and last n of M's extremes settles those two levels.
+  auto offer = [&](SignedSum m, Natural n) {
+    if (compare_scaled(m, n, c.scaled.max, c.scaled.max_n) > 0) c.scaled.max = m, c.scaled.max_n = n;
+    if (compare_scaled(m, n, c.scaled.min, c.scaled.min_n) < 0) c.scaled.min = m, c.scaled.min_n = n;
+  };
+  offer(high, extras.m_high_n);
+  offer(high, extras.m_high_last_n);
+  offer(low, extras.m_low_n);
+  offer(low, extras.m_low_last_n);
+  thresholds();
+  // Levels high and low are settled; only a level strictly between them and the thresholds
+  // (above < m < high or low < m < below) can still beat the column's extremes.
+  if (above < high - 1 || below > low + 1) {
+    SignedSum m = m0;
+    for (std::size_t i = 0; i < count; ++i) {
+      m += mu_of_code[codes[i]];
+      if (m > above || m < below) {
+        const Natural n = s.lo + i;
+        // M hovers near its extremes for long stretches: a double test first, the exact one
+        // only for values within the slack of the current extremes.
+        const double v = scaled_value(m, n);
+        if (v < scaled_value(c.scaled.max, c.scaled.max_n) - slack && v > scaled_value(c.scaled.min, c.scaled.min_n) + slack)
+          continue;
+        const SignedSum old_max = c.scaled.max, old_min = c.scaled.min;
+        const Natural old_max_n = c.scaled.max_n, old_min_n = c.scaled.min_n;
+        offer(m, n);
+        if (c.scaled.max != old_max || c.scaled.max_n != old_max_n || c.scaled.min != old_min || c.scaled.min_n != old_min_n)
+          thresholds();
+      }
+    }
+    scanned_ += count;
+  }
+  }
 
   // D(n) = +-1: the column needs the first n with the value it has not shown yet.
   const Count flips_after_first = fredholm_flips(s) - (column_start && flips_fredholm(codes[0]) ? 1 : 0);
-  bool need_fredholm = c.fredholm.min == c.fredholm.max && flips_after_first > 0;
-
-  if (need_high || need_low || scan_scaled || need_fredholm) {
-    SignedSum m = m0;
-    int d = fredholm_of(before);
-    const std::size_t count = s.hi - s.lo;
-    std::size_t i = 0;
-    for (; i < count; ++i) {
+  if (c.fredholm.min == c.fredholm.max && flips_after_first > 0) {
+    for (std::size_t i = column_start ? 1 : 0; i < count; ++i) {
+      if (!flips_fredholm(codes[i])) continue;
       const Natural n = s.lo + i;
-      const arith::FactorCode code = codes[i];
-      m += arith::code_mu(code);
-      if (need_high && m == high) c.mertens.max = high, c.mertens.max_n = n, need_high = false;
-      if (need_low && m == low) c.mertens.min = low, c.mertens.min_n = n, need_low = false;
-      if (flips_fredholm(code)) d = -d;
-      if (need_fredholm && d != c.fredholm.first) {
-        if (d < c.fredholm.min) c.fredholm.min = d, c.fredholm.min_n = n;
-        else c.fredholm.max = d, c.fredholm.max_n = n;
-        need_fredholm = false;
-      }
-      if (scan_scaled) {
-        const double v = scaled_value(m, n);
-        if (v > scaled_max - slack && compare_scaled(m, n, c.scaled.max, c.scaled.max_n) > 0)
-          c.scaled.max = m, c.scaled.max_n = n, scaled_max = v;
-        if (v < scaled_min + slack && compare_scaled(m, n, c.scaled.min, c.scaled.min_n) < 0)
-          c.scaled.min = m, c.scaled.min_n = n, scaled_min = v;
-      } else if (!need_high && !need_low && !need_fredholm) {
-        ++i;
-        break;
-      }
+      const SignedSum other = -c.fredholm.first;  // the first flip after the column's first n shows it
+      if (other < c.fredholm.min) c.fredholm.min = other, c.fredholm.min_n = n;
+      else c.fredholm.max = other, c.fredholm.max_n = n;
+      scanned_ += i + 1;
+      break;
     }
-    scanned_ += i;
   }
 
   if (options_.betti) {
+    const EnvelopePieceExtras& extras = given;
     const auto& counts = before.interval_counts();
     for (int k = 0; k < betti_slots; ++k) {
       const SignedSum b0 = topology::betti_from_interval_counts(counts, k);

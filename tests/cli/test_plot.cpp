@@ -34,7 +34,8 @@ Csv read_csv(const std::filesystem::path& p) {
 // Compares the envelope of M, b1 and f1 with the full series of a --every 1 table: per column
 // the min and max, their first positions (last n for the non-decreasing f1), first and last.
 // Returns the number of columns compared.
-std::size_t compare_with_full(const Csv& full, const Csv& env, unsigned long long first, unsigned long long last) {
+std::size_t compare_with_full(const Csv& full, const Csv& env, unsigned long long first, unsigned long long last,
+                              const std::vector<std::string>& series_list) {
   std::map<unsigned long long, std::size_t> row_of;  // n -> row of the full table
   for (std::size_t i = 0; i < full.rows.size(); ++i) row_of[std::stoull(full.rows[i][0])] = i;
   unsigned long long expected_lo = first;
@@ -44,7 +45,7 @@ std::size_t compare_with_full(const Csv& full, const Csv& env, unsigned long lon
     EXPECT_EQ(lo, expected_lo) << "columns must tile [first, last]";
     EXPECT_LT(lo, hi);
     expected_lo = hi;
-    for (const std::string series : {"mertens", "b1", "f1"}) {
+    for (const std::string& series : series_list) {
       const std::size_t col = full.at(series);
       long long mn = 0, mx = 0;
       unsigned long long mn_n = 0, mx_n = 0;
@@ -72,10 +73,12 @@ TEST(Plot, EnvelopeKeepsEveryExtremeOfTheFullSeries) {
   ScratchDir dir;
   struct Case {
     std::string to, from, width;
-    bool log_x;
+    bool log_x, betti;
   };
-  const std::vector<Case> cases = {{"30000", "1", "200", false}, {"30000", "1", "1200", true}, {"30000", "777", "37", false},
-                                   {"123457", "1", "640", false}, {"123457", "1", "300", true}};
+  const std::vector<Case> cases = {{"30000", "1", "200", false, true},   {"30000", "1", "1200", true, true},
+                                   {"30000", "777", "37", false, true},  {"123457", "1", "640", false, true},
+                                   {"123457", "1", "300", true, true},   {"123457", "1", "50", false, false},
+                                   {"123457", "99", "700", true, false}};
   std::size_t columns = 0;
   for (const auto& c : cases) {
     const auto full_run = run_sqfc(dir, {"table", "--to", c.to, "--from", c.from, "--every", "1", "--columns", "mertens,b1,f1",
@@ -84,9 +87,13 @@ TEST(Plot, EnvelopeKeepsEveryExtremeOfTheFullSeries) {
     std::vector<std::string> args = {"table", "--to", c.to, "--from", c.from, "--block-size", "1024", "--envelope", "env.csv",
                                      "--plot-width", c.width, "--out", "t.csv", "--quiet"};
     if (c.log_x) args.push_back("--plot-log-x");
+    if (c.betti) args.push_back("--envelope-betti");
     const auto env_run = run_sqfc(dir, args);
     ASSERT_EQ(env_run.exit_code, 0) << describe(env_run);
-    const auto n = compare_with_full(read_csv(dir.path("full.csv")), read_csv(dir.path("env.csv")), std::stoull(c.from), std::stoull(c.to));
+    const auto env = read_csv(dir.path("env.csv"));
+    EXPECT_EQ(std::find(env.header.begin(), env.header.end(), "b1_max") != env.header.end(), c.betti);
+    const auto n = compare_with_full(read_csv(dir.path("full.csv")), env, std::stoull(c.from), std::stoull(c.to),
+                                     c.betti ? std::vector<std::string>{"mertens", "b1", "f1"} : std::vector<std::string>{"mertens", "f1"});
     EXPECT_LE(n, std::stoull(c.width));
     if (!c.log_x) {
       EXPECT_EQ(n, std::stoull(c.width));  // linear columns: as many as asked
@@ -113,6 +120,7 @@ TEST(Plot, RefusalsAreOneLineExitTwoAndWriteNothing) {
       {{"table", "--to", "1000", "--plot", "--gnuplot", "/nonexistent/gnuplot", "--out", "u.csv"}, "gnuplot-nox"},
       {{"homology", "--to", "100000", "--plot", "barcode", "--out", "u.csv"}, "small N"},
       {{"fredholm", "--to", "100", "--plot", "mertens", "--out", "u.csv"}, "not 'mertens'"},
+      {{"table", "--to", "1000", "--envelope-betti", "--out", "u.csv"}, "needs --envelope or --plot"},
   };
   for (const auto& [args, message] : cases) {
     const auto r = run_sqfc(dir, args);

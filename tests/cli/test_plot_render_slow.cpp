@@ -11,7 +11,7 @@ namespace {
 
 TEST(PlotRender, TablePlotDrawsBesideTheTable) {
   ScratchDir dir;
-  const auto r = run_sqfc(dir, {"table", "--to", "2e5", "--log", "3", "--events", "ev.csv", "--out", "t.csv", "--plot", "png,svg",
+  const auto r = run_sqfc(dir, {"table", "--to", "2e5", "--log", "3", "--events", "ev.csv", "--out", "t.csv", "--plot", "png,svg,mertens,scaled,betti,faces,fredholm",
                                 "--plot-width", "600", "--plot-height", "400", "--quiet"});
   ASSERT_EQ(r.exit_code, 0) << describe(r);
   for (const std::string kind : {"mertens", "scaled", "betti", "faces", "fredholm"}) {
@@ -26,6 +26,15 @@ TEST(PlotRender, TablePlotDrawsBesideTheTable) {
   EXPECT_NE(manifest.find("\"envelope\": \"t.envelope.csv\""), std::string::npos) << manifest;
   EXPECT_NE(manifest.find("\"t-fredholm.svg\""), std::string::npos) << manifest;
   EXPECT_NE(manifest.find("\"envelope_columns\": 600"), std::string::npos) << manifest;
+  // Without a list, --plot draws every kind but betti (whose envelope costs a per-n pass), in PNG;
+  // the betti picture from that envelope is refused with a hint.
+  const auto d = run_sqfc(dir, {"table", "--to", "1e5", "--out", "d.csv", "--plot", "--quiet"});
+  ASSERT_EQ(d.exit_code, 0) << describe(d);
+  for (const std::string kind : {"mertens", "scaled", "faces", "fredholm"}) EXPECT_TRUE(std::filesystem::exists(dir.path("d-" + kind + ".png"))) << kind;
+  EXPECT_FALSE(std::filesystem::exists(dir.path("d-betti.png")));
+  const auto refused = run_sqfc(dir, {"plot", "d.envelope.csv", "--kind", "betti", "--out", "x"});
+  EXPECT_EQ(refused.exit_code, 2);
+  EXPECT_NE(refused.err.find("--envelope-betti"), std::string::npos) << describe(refused);
   // The zeros of M up to 2*10^5 are marked (from the events file).
   EXPECT_NE(read_file(dir.path("t-mertens.gp")).find("zeros ("), std::string::npos);
 }

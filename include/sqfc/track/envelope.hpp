@@ -80,10 +80,14 @@ struct Envelope {
   Count scanned_values = 0;  ///< n visited by targeted scans in the ordered pass (cost figure)
 };
 
-/// Betti prefix extremes of one piece, computed in the parallel phase.
-/// Invariant: low/high are extremes of P_d(n) = b_d(n) - b_d(lo - 1) over n in [lo, hi), with
-/// the first n attaining them.
+/// Prefix extremes of one piece with their first positions, computed in the parallel phase.
+/// Invariant: m_low/m_high are extremes of P(n) = M(n) - M(lo - 1), low[d]/high[d] those of
+/// P_d(n) = b_d(n) - b_d(lo - 1), over n in [lo, hi), each with the first n attaining it.
 struct EnvelopePieceExtras {
+  bool has_mertens = false;  ///< m_* are set (with Betti extremes, whose pass pays for them)
+  SignedSum m_low = 0, m_high = 0;
+  Natural m_low_n = 0, m_high_n = 0;            ///< first n attaining m_low, m_high
+  Natural m_low_last_n = 0, m_high_last_n = 0;  ///< last n attaining them
   std::array<std::int32_t, config::omega_slots> low{}, high{};
   std::array<Natural, config::omega_slots> low_n{}, high_n{};
 };
@@ -105,15 +109,18 @@ class EnvelopeBuilder {
   template <class Piece>
   void for_each_piece(Natural lo, std::size_t count, Piece&& piece) const;
 
-  /// Betti prefix extremes of the piece [lo, lo + count). Thread-safe (const).
-  /// Pre: count >= 1 (assumed). Complexity: O(count) time, O(1) memory.
+  /// When wants_betti(): prefix extremes of each b_d (first positions) and of M (first and last
+  /// positions) over the piece [lo, lo + count); nothing otherwise, and add_piece() then finds
+  /// M's positions by a scan in the ordered pass, only in the pieces that need them.
+  /// Thread-safe (const). Pre: count >= 1 (assumed). Complexity: O(count) time, O(1) memory.
   [[nodiscard]] EnvelopePieceExtras summarize_piece(Natural lo, const arith::FactorCode* codes, std::size_t count) const;
 
   /// Takes the piece `s` (codes[i] belongs to s.lo + i) after state `before` (before.n() == s.lo - 1).
-  /// `extras` is read only when wants_betti(). Pre: pieces arrive in order without gaps and
-  /// none straddles an axis boundary (assumed; asserted in debug builds).
-  /// Complexity: O(omega_slots) plus a scan of the piece when a column extreme of M, M/sqrt(n)
-  /// or D may change inside it.
+  /// `extras` is summarize_piece() of the same piece. Pre: pieces arrive in order without gaps
+  /// and none straddles an axis boundary (assumed; asserted in debug builds).
+  /// Complexity: O(omega_slots), plus an integer scan of the piece when its bounds say a column
+  /// extreme of M(n)/sqrt(n) may change inside it, plus a scan up to the first sign change of D
+  /// when the column has shown one sign only.
   void add_piece(const TrackerState& before, const BlockSummary& s, const EnvelopePieceExtras& extras,
                  const arith::FactorCode* codes);
 
