@@ -13,12 +13,14 @@
 #   --out-dir DIR       where the CSV goes (default data_out/bench)
 #
 # What runs:
-#   1. once: sqfc table --to N --log 1 --events E --plot png --quiet --out T   (makes T's envelope)
+#   1. once: sqfc table --to N --log 1 --events E --envelope-betti --plot png --quiet --out T
+#      (makes T's envelope with every series, and four pictures)
 #   2. R times: sqfc plot ENVELOPE --format png --out P                        (all five kinds)
 #      and R times: sqfc plot ENVELOPE --kind mertens --events E --format png  (one picture)
 #   3. R times each, interleaved: sqfc table --to N' --log 10 --quiet --out A
-#                                 sqfc table --to N' --log 10 --quiet --out B --envelope B.env
-#                                 sqfc table --to N' --log 10 --quiet --out C --envelope C.env --plot-log-x
+#                                 ... --envelope B.env                    (M, M/sqrt(n), Q, D, f_d)
+#                                 ... --envelope C.env --plot-log-x       (the same, log columns)
+#                                 ... --envelope D.env --envelope-betti   (every series, b_d too)
 # Checks (exit 1 on a failure): every run exits 0; M(N) and M(N') in the last rows and the last
 # envelope column equal the published values (OEIS A084237); the largest and smallest M over
 # all envelope columns of run 1, and their first positions, equal the last record high and low
@@ -92,7 +94,7 @@ envelope_mertens() {
 }
 
 # 1. The large run with its envelope and pictures.
-big_cmd=("$SQFC" table --to "$TO" --log 1 --events "$WORK/big-events.csv" --plot png --quiet --out "$WORK/big.csv")
+big_cmd=("$SQFC" table --to "$TO" --log 1 --events "$WORK/big-events.csv" --envelope-betti --plot png --quiet --out "$WORK/big.csv")
 bench_measure "$WORK/big.out" "${big_cmd[@]}"
 BIG_WALL="$BENCH_WALL"
 if ((BENCH_RC != 0)); then
@@ -130,14 +132,15 @@ for ((r = 1; r <= REPEATS; r++)); do
 done
 
 # 3. Envelope overhead on a table run, interleaved.
-plain=(); linear=(); logx=()
+plain=(); linear=(); logx=(); betti=(); plain_cpu=(); linear_cpu=(); logx_cpu=(); betti_cpu=()
 for ((r = 1; r <= REPEATS; r++)); do
-  for variant in plain linear logx; do
+  for variant in plain linear logx betti; do
     rm -f "$WORK/o.csv" "$WORK/o.csv.manifest.json" "$WORK/o.env"
     cmd=("$SQFC" table --to "$OVER" --log 10 --quiet --out "$WORK/o.csv")
     [ "$variant" = plain ] || cmd+=(--envelope "$WORK/o.env")
     [ "$variant" = logx ] && cmd+=(--plot-log-x)
-    bench_measure "$WORK/o.out" "${cmd[@]}"
+    [ "$variant" = betti ] && cmd+=(--envelope-betti)
+    bench_measure "$WORK/o.out" bash -c 'TIMEFORMAT="%U %S"; { time "$@" ; } 2>"$0"' "$WORK/o.cpu" "${cmd[@]}"
     ((BENCH_RC == 0)) || failures+=("overhead $variant run $r: exit status $BENCH_RC")
     m="$(last_mertens "$WORK/o.csv")"
     [ "$m" = "${PUB_M[$OVER]}" ] || failures+=("overhead $variant run $r: M($OVER) = $m, published ${PUB_M[$OVER]}")
@@ -145,8 +148,12 @@ for ((r = 1; r <= REPEATS; r++)); do
       read -r e_last _ <<<"$(envelope_mertens "$WORK/o.env")"
       [ "$e_last" = "${PUB_M[$OVER]}" ] || failures+=("overhead $variant run $r: envelope last M = $e_last")
     fi
-    case "$variant" in plain) plain+=("$BENCH_WALL") ;; linear) linear+=("$BENCH_WALL") ;; logx) logx+=("$BENCH_WALL") ;; esac
-    notes+=("table to $OVER, $variant, run $r: $BENCH_WALL s, peak $BENCH_PEAK_KIB KiB")
+    cpu="$(awk '{ print $1 + $2 }' "$WORK/o.cpu" 2>/dev/null || echo nan)"
+    case "$variant" in
+      plain) plain+=("$BENCH_WALL"); plain_cpu+=("$cpu") ;; linear) linear+=("$BENCH_WALL"); linear_cpu+=("$cpu") ;;
+      logx) logx+=("$BENCH_WALL"); logx_cpu+=("$cpu") ;; betti) betti+=("$BENCH_WALL"); betti_cpu+=("$cpu") ;;
+    esac
+    notes+=("table to $OVER, $variant, run $r: $BENCH_WALL s wall, $cpu s CPU (user + system), peak $BENCH_PEAK_KIB KiB")
     echo "bench_plot: ${notes[-1]}"
   done
 done
@@ -157,6 +164,9 @@ one_med="$(bench_median "${plot_one[@]}")"
 plain_med="$(bench_median "${plain[@]}")"
 linear_med="$(bench_median "${linear[@]}")"
 logx_med="$(bench_median "${logx[@]}")"
+betti_med="$(bench_median "${betti[@]}")"
+plain_cpu_med="$(bench_median "${plain_cpu[@]}")"; linear_cpu_med="$(bench_median "${linear_cpu[@]}")"
+logx_cpu_med="$(bench_median "${logx_cpu[@]}")"; betti_cpu_med="$(bench_median "${betti_cpu[@]}")"
 ratio() { awk -v a="$1" -v b="$2" 'BEGIN { printf "%.3f", (b > 0 ? a / b : 0) }'; }
 {
   echo "# sqfc benchmark: sqfc plot of a large run's envelope, and the envelope's cost in sqfc table (same session)"
@@ -166,19 +176,21 @@ ratio() { awk -v a="$1" -v b="$2" 'BEGIN { printf "%.3f", (b > 0 ? a / b : 0) }'
   echo "# ${ENVELOPE_NOTE:-no envelope}"
   for note in "${notes[@]}"; do echo "# $note"; done
   if ((${#failures[@]})); then echo "# checks: FAIL: ${failures[*]}"; else echo "# checks: pass"; fi
-  echo "what,n,median_seconds,ratio_vs_plain_table"
-  echo "plot_all_five_kinds,$TO,$all_med,"
-  echo "plot_mertens_with_events,$TO,$one_med,"
-  echo "table_plain,$OVER,$plain_med,1.000"
-  echo "table_envelope_linear,$OVER,$linear_med,$(ratio "$linear_med" "$plain_med")"
-  echo "table_envelope_log_x,$OVER,$logx_med,$(ratio "$logx_med" "$plain_med")"
+  echo "what,n,median_seconds,ratio_vs_plain_table,median_cpu_seconds,cpu_ratio_vs_plain_table"
+  echo "plot_all_five_kinds,$TO,$all_med,,,"
+  echo "plot_mertens_with_events,$TO,$one_med,,,"
+  echo "table_plain,$OVER,$plain_med,1.000,$plain_cpu_med,1.000"
+  echo "table_envelope_linear,$OVER,$linear_med,$(ratio "$linear_med" "$plain_med"),$linear_cpu_med,$(ratio "$linear_cpu_med" "$plain_cpu_med")"
+  echo "table_envelope_log_x,$OVER,$logx_med,$(ratio "$logx_med" "$plain_med"),$logx_cpu_med,$(ratio "$logx_cpu_med" "$plain_cpu_med")"
+  echo "table_envelope_with_betti,$OVER,$betti_med,$(ratio "$betti_med" "$plain_med"),$betti_cpu_med,$(ratio "$betti_cpu_med" "$plain_cpu_med")"
 } >"$CSV"
 
 status=0
 echo
 echo "bench_plot summary ($(lscpu 2>/dev/null | sed -n 's/^Model name: *//p' | head -n 1), $(nproc) cores; load $load_start -> $load_end)"
 echo "  sqfc plot of the 10^$(( ${#TO} - 1 )) envelope, five kinds: median $all_med s; mertens with events: median $one_med s"
-echo "  sqfc table --to $OVER: plain $plain_med s, with envelope $linear_med s (x $(ratio "$linear_med" "$plain_med")), log-x envelope $logx_med s (x $(ratio "$logx_med" "$plain_med"))"
+echo "  sqfc table --to $OVER wall: plain $plain_med s, envelope $linear_med s (x $(ratio "$linear_med" "$plain_med")), log-x $logx_med s (x $(ratio "$logx_med" "$plain_med")), with Betti $betti_med s (x $(ratio "$betti_med" "$plain_med"))"
+echo "  sqfc table --to $OVER CPU:  plain $plain_cpu_med s, envelope $linear_cpu_med s (x $(ratio "$linear_cpu_med" "$plain_cpu_med")), log-x $logx_cpu_med s (x $(ratio "$logx_cpu_med" "$plain_cpu_med")), with Betti $betti_cpu_med s (x $(ratio "$betti_cpu_med" "$plain_cpu_med"))"
 if ((${#failures[@]})); then
   echo "  answers: FAIL"
   for f in "${failures[@]}"; do echo "    $f"; done
