@@ -176,6 +176,7 @@ struct Frame {
   bool log_x = false, log_y = false;
   std::string x_range, y_range;  // gnuplot ranges such as "[1:1000]" or ""
   std::string x_format;          // tic format of a linear x axis (empty: gnuplot's)
+  std::string extra;             // further settings of this kind
 };
 
 std::string script_head(const Frame& f, const PlotRequest& r, const std::string& data_name) {
@@ -217,6 +218,7 @@ std::string script_head(const Frame& f, const PlotRequest& r, const std::string&
   if (f.log_y) s << "set logscale y\nset format y \"10^{%T}\"\n";
   if (!f.x_range.empty()) s << "set xrange " << f.x_range << "\n";
   if (!f.y_range.empty()) s << "set yrange " << f.y_range << "\n";
+  s << f.extra;
   return s.str();
 }
 
@@ -421,7 +423,7 @@ Picture line_picture(PlotKind kind, const PlotRequest& r, PlotInput input, const
 
   const double x_lo = std::max(x.lo, 1.0), x_hi = std::max(x.hi, x_lo + 1);
   f.x_range = range_text(x_lo, x_hi);
-  if (!r.log_x && x_hi >= 1e6) f.x_format = "%.1t·10^{%T}";
+  if (!r.log_x && x_hi >= 1e6) f.x_format = "%.2h";
   // M and M/sqrt(n): the data fill the height; the guides are clipped.
   if ((kind == PlotKind::mertens || kind == PlotKind::scaled) && (!y.empty || markers)) {
     double extent = std::max({y.empty ? 0.0 : std::abs(y.lo), y.empty ? 0.0 : std::abs(y.hi), kind == PlotKind::scaled ? 0.2 : 1.0});
@@ -467,6 +469,7 @@ Picture line_picture(PlotKind kind, const PlotRequest& r, PlotInput input, const
       f.title = "Fredholm determinant D(n) = det(1 + A(H_n)), n ≤ " + N;
       f.y_label = "D(n)";
       f.y_range = "[-1.6:1.6]";
+      f.extra = "set ytics (\"−1\" -1, \"0\" 0, \"+1\" 1)\n";
       clauses.push_back(envelope ? band(0, "series", "values taken in each column") : step_line(2, "series", "D(n)"));
       break;
     case PlotKind::betti:
