@@ -138,6 +138,8 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
       else throw InvalidArgument("--plot: sqfc fredholm draws fredholm and green, not '" + std::string(io::plot_kind_name(k)) + "'");
     }
     if (a.out && *a.out == "-") throw InvalidArgument("--plot draws beside the output file; give --out FILE (not -)");
+    if (want_green && a.histogram && *a.histogram == "-")
+      throw InvalidArgument("--plot draws the histogram from a file; give --histogram FILE (not -)");
     apply_plot_look(a.plot_look, sign_plot, false);
     io::check_gnuplot(sign_plot.gnuplot);
     if (!choice.formats.empty()) sign_plot.formats = choice.formats;

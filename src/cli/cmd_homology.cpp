@@ -61,6 +61,7 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
     if (bars && n_max > 50'000)
       throw InvalidArgument("--plot barcode and diagram are for small N (--to 50000 or less); use --plot betti");
     if (a.out && *a.out == "-") throw InvalidArgument("--plot draws beside the output file; give --out FILE (not -)");
+    if (bars && a.barcode && *a.barcode == "-") throw InvalidArgument("--plot draws the barcode from a file; give --barcode FILE (not -)");
     apply_plot_look(a.plot_look, barcode_plot, false);
     io::check_gnuplot(barcode_plot.gnuplot);
     if (!choice.formats.empty()) barcode_plot.formats = choice.formats;
