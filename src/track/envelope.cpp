@@ -258,44 +258,44 @@ void EnvelopeBuilder::add_piece(const TrackerState& before, const BlockSummary& 
     }
   }
   if (found != nullptr) {
-  const EnvelopePieceExtras& extras = *found;
-  const SignedSum high = m0 + extras.m_high, low = m0 + extras.m_low;
-  if (high > c.mertens.max) c.mertens.max = high, c.mertens.max_n = extras.m_high_n;
-  if (low < c.mertens.min) c.mertens.min = low, c.mertens.min_n = extras.m_low_n;
+    const EnvelopePieceExtras& extras = *found;
+    const SignedSum high = m0 + extras.m_high, low = m0 + extras.m_low;
+    if (high > c.mertens.max) c.mertens.max = high, c.mertens.max_n = extras.m_high_n;
+    if (low < c.mertens.min) c.mertens.min = low, c.mertens.min_n = extras.m_low_n;
 
-  // M(n)/sqrt(n). Over the n of one level m, m/sqrt(n) is extreme at the level's first or last
-  // n in the piece, so offering the first and last n of M's extremes settles those two levels.
-  auto offer = [&](SignedSum m, Natural n) {
-    if (compare_scaled(m, n, c.scaled.max, c.scaled.max_n) > 0) c.scaled.max = m, c.scaled.max_n = n;
-    if (compare_scaled(m, n, c.scaled.min, c.scaled.min_n) < 0) c.scaled.min = m, c.scaled.min_n = n;
-  };
-  offer(high, extras.m_high_n);
-  offer(high, extras.m_high_last_n);
-  offer(low, extras.m_low_n);
-  offer(low, extras.m_low_last_n);
-  thresholds();
-  // Levels high and low are settled; only a level strictly between them and the thresholds
-  // (above < m < high or low < m < below) can still beat the column's extremes.
-  if (above < high - 1 || below > low + 1) {
-    SignedSum m = m0;
-    for (std::size_t i = 0; i < count; ++i) {
-      m += mu_of_code[codes[i]];
-      if (m > above || m < below) {
-        const Natural n = s.lo + i;
-        // M hovers near its extremes for long stretches: a double test first, the exact one
-        // only for values within the slack of the current extremes.
-        const double v = scaled_value(m, n);
-        if (v < scaled_value(c.scaled.max, c.scaled.max_n) - slack && v > scaled_value(c.scaled.min, c.scaled.min_n) + slack)
-          continue;
-        const SignedSum old_max = c.scaled.max, old_min = c.scaled.min;
-        const Natural old_max_n = c.scaled.max_n, old_min_n = c.scaled.min_n;
-        offer(m, n);
-        if (c.scaled.max != old_max || c.scaled.max_n != old_max_n || c.scaled.min != old_min || c.scaled.min_n != old_min_n)
-          thresholds();
+    // M(n)/sqrt(n). Over the n of one level m, m/sqrt(n) is extreme at the level's first or last
+    // n in the piece, so offering the first and last n of M's extremes settles those two levels.
+    auto offer = [&](SignedSum m, Natural n) {
+      if (compare_scaled(m, n, c.scaled.max, c.scaled.max_n) > 0) c.scaled.max = m, c.scaled.max_n = n;
+      if (compare_scaled(m, n, c.scaled.min, c.scaled.min_n) < 0) c.scaled.min = m, c.scaled.min_n = n;
+    };
+    offer(high, extras.m_high_n);
+    offer(high, extras.m_high_last_n);
+    offer(low, extras.m_low_n);
+    offer(low, extras.m_low_last_n);
+    thresholds();
+    // Levels high and low are settled; only a level strictly between them and the thresholds
+    // (above < m < high or low < m < below) can still beat the column's extremes.
+    if (above < high - 1 || below > low + 1) {
+      SignedSum m = m0;
+      for (std::size_t i = 0; i < count; ++i) {
+        m += mu_of_code[codes[i]];
+        if (m > above || m < below) {
+          const Natural n = s.lo + i;
+          // M hovers near its extremes for long stretches: a double test first, the exact one
+          // only for values within the slack of the current extremes.
+          const double v = scaled_value(m, n);
+          if (v < scaled_value(c.scaled.max, c.scaled.max_n) - slack && v > scaled_value(c.scaled.min, c.scaled.min_n) + slack)
+            continue;
+          const SignedSum old_max = c.scaled.max, old_min = c.scaled.min;
+          const Natural old_max_n = c.scaled.max_n, old_min_n = c.scaled.min_n;
+          offer(m, n);
+          if (c.scaled.max != old_max || c.scaled.max_n != old_max_n || c.scaled.min != old_min || c.scaled.min_n != old_min_n)
+            thresholds();
+        }
       }
+      scanned_ += count;
     }
-    scanned_ += count;
-  }
   }
 
   // D(n) = +-1: the column needs the first n with the value it has not shown yet.
