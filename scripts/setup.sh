@@ -7,7 +7,7 @@ cd "$(dirname "$0")/.."
 BUILD_DIR="${1:-build}"
 
 PACKAGES=(build-essential cmake pkg-config libflint-dev libboost-dev libcli11-dev
-          libgtest-dev libbenchmark-dev libpari-dev pari-gp nlohmann-json3-dev gnuplot-nox
+          libgtest-dev libbenchmark-dev libpari-dev pari-gp nlohmann-json3-dev gnuplot-nox fonts-dejavu-core
           liblapack-dev libblas-dev python3-networkx python3-scipy libgudhi-dev
           libsqlite3-dev libopenmpi-dev openmpi-bin)
 missing=()

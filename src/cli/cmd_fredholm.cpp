@@ -89,6 +89,11 @@ void add_fredholm_command(CLI::App& app, FredholmArguments& a) {
                                         "bytes the bordered matrix may use (default 2^32)");
   cmd->add_option_function<std::string>("--out", [&a](const std::string& v) { a.out = v; }, "output CSV (default under data_out/fredholm/), - for stdout");
   cmd->add_flag("--quiet,-q", a.quiet, std::string("no progress bar"));
+  a.plot_option = cmd->add_option("--plot", a.plot_list,
+                                  "draw the Fredholm sign and, with a histogram, the Green value histogram beside the output; "
+                                  "optional comma list of kinds (fredholm, green) and formats (png, svg, pdf)")
+                      ->expected(0, 1);
+  add_plot_look_options(*cmd, a.plot_look, false);
 }
 
 int run_fredholm_command(const FredholmArguments& a, const Invocation& invocation) {
@@ -120,6 +125,29 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   options.memory_limit = a.memory_limit ? parse_number_option(*a.memory_limit, "--memory-limit", 1, ~0ULL) : (std::uint64_t{1} << 32);
   if (a.out && a.out->empty()) throw InvalidArgument("--out: empty path (use - for standard output)");
   if (a.histogram && a.histogram->empty()) throw InvalidArgument("--histogram: empty path");
+  const bool plot = a.plot_option && a.plot_option->count() > 0;
+  io::PlotRequest sign_plot, green_plot;
+  bool want_green = false;
+  if (plot) {
+    const auto choice = parse_plot_choice(a.plot_list, "--plot");
+    bool want_sign = choice.kinds.empty();
+    want_green = choice.kinds.empty() && a.histogram.has_value();
+    for (const auto k : choice.kinds) {
+      if (k == io::PlotKind::fredholm) want_sign = true;
+      else if (k == io::PlotKind::green) want_green = true;
+      else throw InvalidArgument("--plot: sqfc fredholm draws fredholm and green, not '" + std::string(io::plot_kind_name(k)) + "'");
+    }
+    if (a.out && *a.out == "-") throw InvalidArgument("--plot draws beside the output file; give --out FILE (not -)");
+    if (want_green && a.histogram && *a.histogram == "-")
+      throw InvalidArgument("--plot draws the histogram from a file; give --histogram FILE (not -)");
+    apply_plot_look(a.plot_look, sign_plot, false);
+    io::check_gnuplot(sign_plot.gnuplot);
+    if (!choice.formats.empty()) sign_plot.formats = choice.formats;
+    green_plot = sign_plot;
+    if (want_sign) sign_plot.kinds = {io::PlotKind::fredholm};
+    if (want_green) green_plot.kinds = {io::PlotKind::green};
+    if (want_green) options.green_stats = true;
+  }
 
   track::check_fredholm_options(options);  // refuse before any output exists
 
@@ -129,11 +157,19 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   } else {
     out_path = default_output_path("fredholm", invocation, n_max, "fredholm.csv");
   }
+  std::optional<std::string> histogram_path = a.histogram;
+  if (plot) {
+    const std::string prefix = plot_prefix_beside(out_path);
+    if (want_green && !histogram_path) histogram_path = prefix + ".histogram.csv";
+    sign_plot.prefix = green_plot.prefix = prefix;
+    sign_plot.input = out_path;
+    if (histogram_path) green_plot.input = *histogram_path;
+  }
   const auto started = std::chrono::system_clock::now();
   const auto clock_start = std::chrono::steady_clock::now();
   io::AtomicOutputFile out(out_path);
   std::unique_ptr<io::AtomicOutputFile> histogram, dump;
-  if (a.histogram) histogram = std::make_unique<io::AtomicOutputFile>(*a.histogram);
+  if (histogram_path) histogram = std::make_unique<io::AtomicOutputFile>(*histogram_path);
   if (dump_n) dump = std::make_unique<io::AtomicOutputFile>(*a.dump_file);
   std::unique_ptr<io::AtomicOutputFile> manifest;
   if (!out.is_stream()) manifest = std::make_unique<io::AtomicOutputFile>(out_path + ".manifest.json");
@@ -167,6 +203,12 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
   out.commit();
   if (histogram) histogram->commit();
   if (dump) dump->commit();
+  std::vector<std::string> pictures;
+  if (plot) {
+    for (const auto* request : {&sign_plot, &green_plot})
+      if (!request->kinds.empty())
+        for (const auto& made : io::make_plots(*request)) pictures.insert(pictures.end(), made.pictures.begin(), made.pictures.end());
+  }
   const double wall = std::chrono::duration<double>(std::chrono::steady_clock::now() - clock_start).count();
   if (manifest) {
     io::Json m = io::manifest_head(invocation.argv);
@@ -186,7 +228,12 @@ int run_fredholm_command(const FredholmArguments& a, const Invocation& invocatio
     m.set("threads", options.threads);
     io::Json outputs;
     outputs.set("table", out_path);
-    if (a.histogram) outputs.set("histogram", *a.histogram);
+    if (histogram_path) outputs.set("histogram", *histogram_path);
+    if (plot) {
+      io::Json list = io::Json::Array{};
+      for (const auto& p : pictures) list.push(p);
+      outputs.set("pictures", std::move(list));
+    }
     if (dump_n) outputs.set("green_matrix", *a.dump_file);
     m.set("outputs", std::move(outputs));
     m.set("rows", report.rows);

@@ -30,6 +30,11 @@ void add_homology_command(CLI::App& app, HomologyArguments& a) {
   cmd->add_option_function<std::string>("--max-dim", [&a](const std::string& v) { a.max_dim = v; }, "only faces of dimension <= D");
   cmd->add_option_function<std::string>("--out", [&a](const std::string& v) { a.out = v; }, "Betti table CSV (default under data_out/homology/), - for stdout");
   cmd->add_flag("--quiet,-q", a.quiet, std::string("no messages"));
+  a.plot_option = cmd->add_option("--plot", a.plot_list,
+                                  "draw the barcode, persistence diagram (N <= 50000) and Betti curves beside the output; "
+                                  "optional comma list of kinds (barcode, diagram, betti) and formats (png, svg, pdf)")
+                      ->expected(0, 1);
+  add_plot_look_options(*cmd, a.plot_look, false);
 }
 
 int run_homology_command(const HomologyArguments& a, const Invocation& invocation) {
@@ -43,17 +48,49 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
   if (a.out && a.out->empty()) throw InvalidArgument("--out: empty path (use - for standard output)");
   if (a.barcode && a.barcode->empty()) throw InvalidArgument("--barcode: empty path");
 
+  const bool plot = a.plot_option && a.plot_option->count() > 0;
+  io::PlotRequest barcode_plot, betti_plot;
+  if (plot) {
+    const auto choice = parse_plot_choice(a.plot_list, "--plot");
+    bool bars = choice.kinds.empty() && n_max <= 50'000, betti = choice.kinds.empty();
+    for (const auto k : choice.kinds) {
+      if (k == io::PlotKind::barcode || k == io::PlotKind::diagram) bars = true;
+      else if (k == io::PlotKind::betti) betti = true;
+      else throw InvalidArgument("--plot: sqfc homology draws barcode, diagram and betti, not '" + std::string(io::plot_kind_name(k)) + "'");
+    }
+    if (bars && n_max > 50'000)
+      throw InvalidArgument("--plot barcode and diagram are for small N (--to 50000 or less); use --plot betti");
+    if (a.out && *a.out == "-") throw InvalidArgument("--plot draws beside the output file; give --out FILE (not -)");
+    if (bars && a.barcode && *a.barcode == "-") throw InvalidArgument("--plot draws the barcode from a file; give --barcode FILE (not -)");
+    apply_plot_look(a.plot_look, barcode_plot, false);
+    io::check_gnuplot(barcode_plot.gnuplot);
+    if (!choice.formats.empty()) barcode_plot.formats = choice.formats;
+    betti_plot = barcode_plot;
+    for (const auto k : choice.kinds)
+      if (k != io::PlotKind::betti) barcode_plot.kinds.push_back(k);
+    if (bars && barcode_plot.kinds.empty()) barcode_plot.kinds = {io::PlotKind::barcode, io::PlotKind::diagram};
+    if (!bars) barcode_plot.kinds.clear();
+    if (betti) betti_plot.kinds = {io::PlotKind::betti};
+  }
   std::string out_path;
   if (a.out) {
     out_path = *a.out;
   } else {
     out_path = default_output_path("homology", invocation, n_max, "homology.csv");
   }
+  std::optional<std::string> barcode_path = a.barcode;
+  if (plot) {
+    const std::string prefix = plot_prefix_beside(out_path);
+    if (!barcode_plot.kinds.empty() && !barcode_path) barcode_path = prefix + ".barcode.csv";
+    barcode_plot.prefix = betti_plot.prefix = prefix;
+    if (barcode_path) barcode_plot.input = *barcode_path;
+    betti_plot.input = out_path;
+  }
   const auto started = std::chrono::system_clock::now();
   const auto clock_start = std::chrono::steady_clock::now();
   io::AtomicOutputFile out(out_path);
   std::unique_ptr<io::AtomicOutputFile> barcode;
-  if (a.barcode) barcode = std::make_unique<io::AtomicOutputFile>(*a.barcode);
+  if (barcode_path) barcode = std::make_unique<io::AtomicOutputFile>(*barcode_path);
   std::unique_ptr<io::AtomicOutputFile> manifest;
   if (!out.is_stream()) manifest = std::make_unique<io::AtomicOutputFile>(out_path + ".manifest.json");
 
@@ -108,6 +145,12 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
   }
   out.commit();
   if (barcode) barcode->commit();
+  std::vector<std::string> pictures;
+  if (plot) {
+    for (const auto* request : {&barcode_plot, &betti_plot})
+      if (!request->kinds.empty())
+        for (const auto& made : io::make_plots(*request)) pictures.insert(pictures.end(), made.pictures.begin(), made.pictures.end());
+  }
   const auto checks = tally.take();
   const double wall = std::chrono::duration<double>(std::chrono::steady_clock::now() - clock_start).count();
   if (manifest) {
@@ -131,6 +174,11 @@ int run_homology_command(const HomologyArguments& a, const Invocation& invocatio
                             ? "apparent pairs, remaining columns reduced by apparent columns"
                             : "twist order with clearing");
     m.set("reduction", std::move(stats));
+    if (plot) {
+      io::Json list = io::Json::Array{};
+      for (const auto& p : pictures) list.push(p);
+      m.set("pictures", std::move(list));
+    }
     m.set("formula_checks", full ? "on" : "off: the family is not K_n, so identity 2 does not apply");
     m.set("checks", io::checks_to_json(checks));
     m.set("checks_passed", track::all_passed(checks));

@@ -6,9 +6,11 @@
 #include <string>
 
 #include "cli_support.hpp"
+#include "plot_support.hpp"
 
 namespace CLI {
 class App;
+class Option;
 }
 
 namespace sqfc::cli {
@@ -17,6 +19,9 @@ struct HomologyArguments {
   std::string to;
   std::optional<std::string> every, at, log, out, barcode, field, smooth, coprime_to, max_dim;
   bool quiet = false;
+  std::string plot_list;  // --plot [LIST]: kinds barcode, diagram, betti and formats
+  CLI::Option* plot_option = nullptr;
+  PlotLookArguments plot_look;
 };
 
 void add_homology_command(CLI::App& app, HomologyArguments& args);

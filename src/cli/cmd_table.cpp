@@ -12,6 +12,7 @@
 #include "sqfc/core/error.hpp"
 #include "sqfc/core/number_parse.hpp"
 #include "sqfc/io/atomic_file.hpp"
+#include "sqfc/io/envelope_file.hpp"
 #include "sqfc/io/manifest.hpp"
 #include "sqfc/io/stored_run.hpp"
 #include "table_store.hpp"
@@ -52,6 +53,7 @@ void reject_shared_paths(const TableJob& job) {
   };
   add_with_manifest(job.out, "--out");
   if (job.events_path) add_with_manifest(*job.events_path, "--events");
+  if (job.envelope_path) add(*job.envelope_path, job.plot ? "the envelope of --plot" : "--envelope");
   for (std::size_t i = 0; i < files.size(); ++i)
     for (std::size_t j = i + 1; j < files.size(); ++j)
       if (files[i].first == files[j].first)
@@ -85,6 +87,15 @@ void add_table_command(CLI::App& app, TableArguments& a) {
   cmd->add_option_function<std::string>(
       "--store", [&a](const std::string& v) { a.store = v; }, "checkpoint every segment into this run store (SQLite)");
   cmd->add_flag("--resume", a.resume, std::string("continue the run in the --store file where it stopped"));
+  a.plot_option = cmd->add_option("--plot", a.plot_list,
+                                  "draw pictures from a per-pixel envelope built during the run, beside the table; "
+                                  "optional comma list of kinds (mertens, scaled, betti, faces, fredholm) and formats (png, svg, pdf)")
+                      ->expected(0, 1);
+  cmd->add_option_function<std::string>(
+      "--envelope", [&a](const std::string& v) { a.envelope = v; }, "write the per-pixel-column envelope to this CSV file");
+  cmd->add_flag("--envelope-betti", a.envelope_betti,
+                std::string("also keep the Betti extremes in the envelope (a per-n pass; --plot betti implies it)"));
+  add_plot_look_options(*cmd, a.plot_look, false);
 }
 
 TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
@@ -130,10 +141,49 @@ TableJob make_table_job(const TableArguments& a, const Invocation& invocation) {
     run.events = true;
   }
   job.quiet = a.quiet;
+  const bool plot = a.plot_option && a.plot_option->count() > 0;
+  if (a.envelope && a.envelope->empty()) throw InvalidArgument("--envelope: empty path");
+  if (a.envelope_betti && !plot && !a.envelope) throw InvalidArgument("--envelope-betti needs --envelope or --plot");
+  if (plot || a.envelope) {
+    io::PlotRequest request;
+    apply_plot_look(a.plot_look, request, false, plot ? 200 : 1);
+    track::EnvelopeOptions envelope{run.from, run.to, request.width, request.log_x, true};
+    if (plot) {
+      if (job.out == "-" && !a.envelope)
+        throw InvalidArgument("--plot draws beside the table file; give --out FILE (not -) or --envelope FILE");
+      const auto choice = parse_plot_choice(a.plot_list, "--plot");
+      for (const auto k : choice.kinds)
+        if (k == io::PlotKind::barcode || k == io::PlotKind::diagram || k == io::PlotKind::green)
+          throw InvalidArgument("--plot: sqfc table cannot draw '" + std::string(io::plot_kind_name(k)) +
+                                "' (use sqfc homology --plot or sqfc fredholm --plot)");
+      request.kinds = choice.kinds;
+      if (!choice.formats.empty()) request.formats = choice.formats;
+      const std::string prefix = plot_prefix_beside(a.envelope ? *a.envelope : job.out);
+      request.prefix = prefix;
+      request.input = a.envelope ? *a.envelope : prefix + ".envelope.csv";
+      request.input_kind = io::PlotInput::envelope;
+      if (job.events_path && *job.events_path != "-") request.events = *job.events_path;
+      // Betti extremes cost a per-n pass in the sieve phase (docs/plots.md has the measured
+      // cost): built only when the betti picture is asked for by name.
+      const bool betti = std::find(request.kinds.begin(), request.kinds.end(), io::PlotKind::betti) != request.kinds.end();
+      if (request.kinds.empty())
+        request.kinds = {io::PlotKind::mertens, io::PlotKind::scaled, io::PlotKind::faces, io::PlotKind::fredholm};
+      envelope.betti = betti || a.envelope_betti;
+      io::check_gnuplot(request.gnuplot);  // before the run, not after it
+      job.envelope_path = request.input;
+      job.plot = request;
+    } else {
+      job.envelope_path = *a.envelope;
+      envelope.betti = a.envelope_betti;
+    }
+    run.envelope = envelope;
+  }
   reject_shared_paths(job);
   if (a.resume && !a.store) throw InvalidArgument("--resume needs --store FILE");
   if (a.store) {
     if (a.store->empty() || *a.store == "-") throw InvalidArgument("--store: needs a file path");
+    // The store keeps block summaries, not envelope columns, so a resumed envelope would be partial.
+    if (run.envelope) throw InvalidArgument("--plot and --envelope cannot be combined with --store (the store does not keep envelopes)");
     job.store_path = *a.store;
     job.resume = a.resume;
     job.store_parameters = store_parameters(job, sample_request);
@@ -153,6 +203,8 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
                                                                                   : "";
   std::unique_ptr<io::AtomicOutputFile> manifest_probe;
   if (!manifest_path.empty()) manifest_probe = std::make_unique<io::AtomicOutputFile>(manifest_path);
+  std::unique_ptr<io::AtomicOutputFile> envelope_file;
+  if (job.envelope_path) envelope_file = std::make_unique<io::AtomicOutputFile>(*job.envelope_path);
 
   io::TableWriter table_writer(table_file.stream(), job.format, job.columns, job.bfile_comments);
   std::unique_ptr<io::EventWriter> event_writer;
@@ -169,6 +221,12 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
   bar.finish();
   table_file.commit();
   if (events_file) events_file->commit();
+  if (envelope_file) {
+    io::write_envelope(envelope_file->stream(), *result.report.envelope, std::max(0, complex::max_face_dimension(job.run.to)));
+    envelope_file->commit();
+  }
+  if (job.plot)
+    for (const auto& o : io::make_plots(*job.plot)) result.pictures.insert(result.pictures.end(), o.pictures.begin(), o.pictures.end());
   result.wall_seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - clock_start).count();
 
   if (!manifest_path.empty()) {
@@ -196,12 +254,22 @@ TableJobResult run_table_job(const TableJob& job, const Invocation& invocation) 
     outputs.set("table", job.out);
     if (job.events_path) outputs.set("events", *job.events_path);
     if (job.store_path) outputs.set("store", *job.store_path);
+    if (job.envelope_path) outputs.set("envelope", *job.envelope_path);
+    if (job.plot) {
+      io::Json pictures = io::Json::Array{};
+      for (const auto& p : result.pictures) pictures.push(p);
+      outputs.set("pictures", std::move(pictures));
+    }
     m.set("outputs", std::move(outputs));
     io::Json counts;
     counts.set("rows", r.rows);
     counts.set("events", r.events);
     counts.set("blocks", r.blocks);
     counts.set("scanned_blocks", r.scanned_blocks);
+    if (r.envelope) {
+      counts.set("envelope_columns", static_cast<std::uint64_t>(r.envelope->columns.size()));
+      counts.set("envelope_scanned_values", r.envelope->scanned_values);
+    }
     m.set("counts", std::move(counts));
     m.set("checks", io::checks_to_json(r.checks));
     m.set("checks_passed", r.all_checks_passed());
@@ -223,6 +291,10 @@ int run_table_command(const TableArguments& args, const Invocation& invocation) 
     throw;
   }
   job.run.ranks = mpi.ranks();
+  if (job.run.ranks > 1 && job.run.envelope) {
+    if (mpi.rank() > 0) return exit_code::bad_input;  // rank 0 reports it
+    throw InvalidArgument("--plot and --envelope are not available under mpirun (each rank sees only its own segments)");
+  }
   if (const auto worker = run_worker_rank(job)) return *worker;
   const TableJobResult result = run_table_job(job, invocation);
   if (!result.report.all_checks_passed()) {

@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "cli_support.hpp"
+#include "plot_support.hpp"
 #include "sqfc/io/columns.hpp"
 #include "sqfc/io/run_store.hpp"
 #include "sqfc/io/table_writer.hpp"
@@ -14,6 +15,7 @@
 
 namespace CLI {
 class App;
+class Option;
 }
 
 namespace sqfc::cli {
@@ -25,6 +27,12 @@ struct TableArguments {
   std::optional<std::string> every, at, log, columns, out, events, threads, block_size, store;
   bool quiet = false;
   bool resume = false;
+  // Pictures: --plot [LIST] (kinds and formats), --envelope FILE, and the look options.
+  std::string plot_list;
+  CLI::Option* plot_option = nullptr;
+  std::optional<std::string> envelope;
+  bool envelope_betti = false;
+  PlotLookArguments plot_look;
 };
 
 /// A validated table job.
@@ -40,6 +48,8 @@ struct TableJob {
   std::optional<std::string> store_path;  ///< --store: checkpoint into this run store
   bool resume = false;                    ///< --resume: continue the store's run
   std::vector<io::RunParameter> store_parameters;  ///< what a resumed store must match
+  std::optional<std::string> envelope_path;  ///< envelope file (--envelope, or beside the table with --plot)
+  std::optional<io::PlotRequest> plot;        ///< pictures drawn from the envelope after the run
 };
 
 /// What a finished job wrote and found.
@@ -47,6 +57,7 @@ struct TableJobResult {
   track::TableRunReport report;
   std::string manifest_path;  ///< empty when no manifest was written
   double wall_seconds = 0;
+  std::vector<std::string> pictures;
 };
 
 void add_table_command(CLI::App& app, TableArguments& args);

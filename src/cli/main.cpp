@@ -13,6 +13,7 @@
 #include "cmd_fredholm.hpp"
 #include "cmd_homology.hpp"
 #include "cmd_runs.hpp"
+#include "cmd_plot.hpp"
 #include "cmd_table.hpp"
 #include "cmd_value.hpp"
 #include "sqfc/core/error.hpp"
@@ -53,6 +54,8 @@ int main(int argc, char** argv) {
   sqfc::cli::add_value_command(app, value_args);
   sqfc::cli::RunsArguments runs_args;
   sqfc::cli::add_runs_command(app, runs_args);
+  sqfc::cli::PlotArguments plot_args;
+  sqfc::cli::add_plot_command(app, plot_args);
 
   std::string command = "sqfc";
   sqfc::cli::install_interrupt_handlers();
@@ -62,7 +65,7 @@ int main(int argc, char** argv) {
     bool known = false;
     for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, value, fredholm, homology, face, complex, check, demo, runs; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, value, fredholm, homology, face, complex, check, plot, demo, runs; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }
@@ -87,6 +90,7 @@ int main(int argc, char** argv) {
     if (app.got_subcommand("homology")) return sqfc::cli::run_homology_command(homology_args, invocation);
     if (app.got_subcommand("value")) return sqfc::cli::run_value_command(value_args, invocation);
     if (app.got_subcommand("runs")) return sqfc::cli::run_runs_command(app, runs_args);
+    if (app.got_subcommand("plot")) return sqfc::cli::run_plot_command(plot_args, invocation);
     std::cerr << "sqfc: error: no command given (see sqfc --help)\n";
     return sqfc::exit_code::bad_input;
   } catch (const sqfc::Error& e) {

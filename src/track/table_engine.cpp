@@ -23,6 +23,7 @@ struct Worker {
   arith::SegmentedSieve sieve;
   std::vector<arith::FactorCode> codes;   // factor codes of the current segment
   std::vector<BlockSummary> summaries;    // one per block of the current segment
+  std::vector<EnvelopePieceExtras> extras;  // one per summary when an envelope is built
   Natural segment_lo = 0;
 };
 
@@ -135,6 +136,8 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
   const Natural local_count = first_local >= segment_count ? 0 : (segment_count - 1 - first_local) / options.ranks + 1;
   std::vector<std::uint8_t> scanned;  // of the segment being committed
   Natural last_committed = first_segment == 0 ? ~Natural{0} : first_segment - 1;
+  std::unique_ptr<EnvelopeBuilder> envelope;
+  if (options.envelope) envelope = std::make_unique<EnvelopeBuilder>(*options.envelope);
 
   // Parallel part: sieve the segment block by block, keep the codes, summarise each block
   // while it is still in cache.
@@ -146,11 +149,21 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
     Worker& worker = *workers[w];
     worker.segment_lo = seg_lo;
     worker.summaries.clear();
+    worker.extras.clear();
     worker.sieve.reset(seg_lo, seg_hi);
     for (Natural lo = seg_lo;; lo += worker.sieve.last_size()) {
       arith::FactorCode* out = worker.codes.data() + (lo - seg_lo);
       if (!worker.sieve.next_block_codes(out)) break;
-      worker.summaries.push_back(summarize_codes(worker.sieve.last_lo(), out, worker.sieve.last_size()));
+      if (!envelope) {
+        worker.summaries.push_back(summarize_codes(worker.sieve.last_lo(), out, worker.sieve.last_size()));
+        continue;
+      }
+      // Envelope pieces never straddle a pixel column, so their summaries bound each column.
+      const Natural block_lo = worker.sieve.last_lo();
+      envelope->for_each_piece(block_lo, worker.sieve.last_size(), [&](std::size_t offset, std::size_t count) {
+        worker.summaries.push_back(summarize_codes(block_lo + offset, out + offset, count));
+        worker.extras.push_back(envelope->summarize_piece(block_lo + offset, out + offset, count));
+      });
     }
   };
 
@@ -166,9 +179,12 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
     Worker& worker = *workers[w];
     scanned.assign(worker.summaries.size(), 0);
     std::size_t block_index = 0;
-    for (const BlockSummary& s : worker.summaries) {
+    for (std::size_t index = 0; index < worker.summaries.size(); ++index) {
+      const BlockSummary& s = worker.summaries[index];
       if (s.lo != state.n() + 1) throw InternalError("block summaries out of order at n = " + std::to_string(s.lo));
       total = merge_summaries(total, s);
+      if (envelope)
+        envelope->add_piece(state, s, worker.extras[index], worker.codes.data() + (s.lo - worker.segment_lo));
       ++report.blocks;
       const auto next_sample = options.samples.next_at_or_after(s.lo);
       const bool has_sample = next_sample && *next_sample < s.hi;
@@ -212,6 +228,7 @@ TableRunReport run_table(const TableRunOptions& options, TableSink& sink, const 
 
   if (local_count > 0) arith::for_each_segment_ordered(0, local_count, 1, worker_count, work, commit);
   report.final_state = state;
+  if (envelope) report.envelope = envelope->take();
   report.checks = checks.take();
   return report;
 }

@@ -12,6 +12,7 @@
 #include "sqfc/core/config.hpp"
 #include "sqfc/core/types.hpp"
 #include "sqfc/track/check_tally.hpp"
+#include "sqfc/track/envelope.hpp"
 #include "sqfc/track/events.hpp"
 #include "sqfc/track/sample_schedule.hpp"
 #include "sqfc/track/tracker_state.hpp"
@@ -63,6 +64,8 @@ struct TableRunOptions {
   /// With ranks > 1: returns the checkpoint after segment g - 1, committed by another process.
   /// Called from the ordered pass just before segment g is committed here.
   std::function<RunCheckpoint(Natural g)> await_checkpoint;
+  /// Build per-pixel-column extremes (envelope.hpp); blocks are then split at its boundaries.
+  std::optional<EnvelopeOptions> envelope;
 };
 
 /// Receives the output of a run, in increasing n, always from one thread at a time.
@@ -85,6 +88,7 @@ struct TableRunReport {
   Count blocks = 0;
   Count scanned_blocks = 0;  ///< blocks that needed the per-n pass (samples or possible events)
   std::vector<CheckOutcome> checks;
+  std::optional<Envelope> envelope;  ///< when TableRunOptions::envelope was set
   [[nodiscard]] bool all_checks_passed() const;
 };
 
