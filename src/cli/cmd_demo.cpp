@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
-// `sqfc demo`: a seminar prepares a poster on where the spheres of K_n appear up to 10^8.
+// `sqfc demo`: a seminar prepares a poster on where the spheres of K_n appear up to 10^8:
+// the table and its b-files, every kind of picture, and a check report that vouches for them.
 #include "cmd_demo.hpp"
 
 #include <CLI/CLI.hpp>
@@ -8,11 +9,20 @@
 #include <map>
 #include <sstream>
 
+#include "cmd_fredholm.hpp"
+#include "cmd_homology.hpp"
 #include "cmd_table.hpp"
+#include "plot_support.hpp"
 #include "sqfc/complex/face_counts.hpp"
 #include "sqfc/core/config.hpp"
 #include "sqfc/core/error.hpp"
 #include "sqfc/io/atomic_file.hpp"
+#include "sqfc/io/bfile_check.hpp"
+#include "sqfc/io/bfile_reader.hpp"
+#include "sqfc/io/identity_report.hpp"
+#include "sqfc/io/plot.hpp"
+#include "sqfc/track/identity_suite.hpp"
+#include "sqfc/track/sequence_terms.hpp"
 
 namespace sqfc::cli {
 
@@ -33,8 +43,20 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
   io::ensure_directory(a.out_dir);
   const auto started = std::chrono::steady_clock::now();
 
-  // The poster table: every invariant at 20 log-spaced points per decade, with events.
+  // Pictures need gnuplot: look for it before the long run, not after.
+  PlotLookArguments look;
+  io::PlotRequest picture_defaults;
+  apply_plot_look(look, picture_defaults, false);
+  io::check_gnuplot(picture_defaults.gnuplot);
+  picture_defaults.formats = {io::PlotFormat::png, io::PlotFormat::svg, io::PlotFormat::pdf};
+  const std::string pictures_dir = a.out_dir + "/pictures";
+  io::ensure_directory(pictures_dir);
+
+  // The poster table: every invariant at 20 log-spaced points per decade, with events, and the
+  // per-pixel envelope (Betti extremes included) for the pictures.
   TableArguments poster;
+  poster.envelope = a.out_dir + "/envelope.csv";
+  poster.envelope_betti = true;
   poster.to = a.to;
   poster.log = "20";
   poster.out = a.out_dir + "/table.csv";
@@ -89,6 +111,72 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
     if (kind == "mertens_low") last_low = value + " at n = " + n;
   }
 
+  // The barcode of the filtration and the Green histogram, small enough to draw bar by bar.
+  const Natural small_n = std::min<Natural>(n_max, 2000);
+  HomologyArguments homology;
+  homology.to = std::to_string(small_n);
+  homology.log = "10";
+  homology.out = a.out_dir + "/homology.csv";
+  homology.barcode = a.out_dir + "/barcode.csv";
+  homology.quiet = true;
+  checks_ok = run_homology_command(homology, invocation) == exit_code::ok && checks_ok;
+  FredholmArguments fredholm;
+  fredholm.to = std::to_string(small_n);
+  fredholm.log = "10";
+  fredholm.out = a.out_dir + "/fredholm.csv";
+  fredholm.histogram = a.out_dir + "/green_histogram.csv";
+  fredholm.threads = a.threads;
+  fredholm.quiet = true;
+  checks_ok = run_fredholm_command(fredholm, invocation) == exit_code::ok && checks_ok;
+
+  // Every kind of picture, each with its data file and gnuplot script beside it.
+  std::vector<std::string> pictures;
+  const auto draw = [&](const std::string& input, std::optional<std::string> events_file, std::vector<io::PlotKind> kinds,
+                        const std::string& name) {
+    io::PlotRequest request = picture_defaults;
+    request.input = input;
+    request.events = std::move(events_file);
+    request.kinds = std::move(kinds);
+    request.prefix = pictures_dir + "/" + name;
+    for (const auto& made : io::make_plots(request)) pictures.insert(pictures.end(), made.pictures.begin(), made.pictures.end());
+  };
+  draw(*poster.envelope, *poster.events,
+       {io::PlotKind::mertens, io::PlotKind::scaled, io::PlotKind::betti, io::PlotKind::faces, io::PlotKind::fredholm},
+       "poster");
+  draw(*homology.barcode, std::nullopt, {io::PlotKind::barcode, io::PlotKind::diagram}, "filtration");
+  draw(*fredholm.histogram, std::nullopt, {io::PlotKind::green}, "green");
+
+  // The check report: the identity suite by independent routes, and the b-files read back and
+  // compared with sqfc's own values term by term.
+  track::IdentitySuiteOptions suite;
+  suite.to = std::min<Natural>(n_max, 1'000'000);
+  suite.threads = a.threads ? static_cast<unsigned>(parse_number_option(*a.threads, "--threads", 1, 256)) : default_thread_count();
+  const auto suite_report = track::run_identity_suite(suite);
+  const std::string report_path = a.out_dir + "/check_report.txt";
+  {
+    io::AtomicOutputFile report(report_path);
+    io::write_identity_report(report.stream(), suite_report, suite.threads);
+    report.stream() << "\nb-files read back (sqfc check --bfile):\n";
+    for (const auto& [column, sequence_name] : std::vector<std::pair<std::string, std::string>>{{"mertens", "mertens"}, {"liouville", "liouville"}}) {
+      const auto contents = io::read_bfile_file(a.out_dir + "/" + column + ".bfile.txt");
+      const auto sequence = track::parse_sequence(sequence_name);
+      const auto values = track::evaluate_sequence_terms(sequence, io::bfile_indices(contents), bfile_to, suite.threads);
+      const auto comparison = io::compare_bfile_terms(contents, values);
+      io::write_bfile_check_report(report.stream(),
+                                   {a.out_dir + "/" + column + ".bfile.txt", track::sequence_name(sequence),
+                                    track::sequence_description(sequence), bfile_to},
+                                   contents, comparison);
+      checks_ok = io::bfile_check_passed(contents, comparison) && checks_ok;
+    }
+    report.commit();
+  }
+  {
+    io::AtomicOutputFile json(a.out_dir + "/check_report.json");
+    json.stream() << io::identity_report_json(suite_report).dump(2) << '\n';
+    json.commit();
+  }
+  checks_ok = suite_report.passed() && checks_ok;
+
   const auto final_row = poster_result.report.final_state.row();
   const int top = std::max(0, complex::max_face_dimension(n_max));
   std::ostringstream betti;
@@ -108,6 +196,11 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
             << "  homology: " << betti.str() << "\n"
             << "  zeros of M up to " << n_max << ": " << zeros << "; highest M " << last_high << "; lowest M "
             << last_low << "\n"
+            << "  pictures: " << pictures.size() << " files (PNG, SVG, PDF; data and gnuplot scripts beside them) in "
+            << pictures_dir << "\n"
+            << "  barcode:  " << *homology.barcode << " (n <= " << small_n << "), Green histogram: " << *fredholm.histogram << "\n"
+            << "  check report: " << report_path << " (identity suite to n = " << suite.to << ", "
+            << suite_report.checks.size() << " checks, and the b-files read back)\n"
             << "  identity checks: " << (checks_ok ? "all passed" : "FAILED") << "\n"
             << "  time: " << seconds << " s\n";
   return checks_ok ? exit_code::ok : exit_code::check_failed;

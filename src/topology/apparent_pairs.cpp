@@ -43,9 +43,12 @@ Natural smallest_allowed_prime(Natural n, const FaceFamily& family) {
 
 struct Worker {
   std::unique_ptr<arith::SegmentedSieve> sieve;
-  std::vector<arith::FactorCode> codes;
-  std::vector<std::uint8_t> prime_count;    // distinct sieved primes found per k of the segment
-  std::vector<std::uint16_t> small_primes;  // max_primes slots per k (base primes < 2^16)
+  // Segment buffers, left uninitialised: each is written before it is read, and a fresh page
+  // that is never touched (small_primes below n/q0 for K_n) costs nothing.
+  std::unique_ptr<arith::FactorCode[]> codes;
+  std::unique_ptr<std::uint8_t[]> prime_count;    // distinct sieved primes found per k of the segment
+  std::unique_ptr<std::uint16_t[]> small_primes;  // max_primes slots per k (base primes < 2^16)
+  std::array<std::size_t, config::omega_slots> last_births{};  // births per dimension in the last segment
   // This segment's births per dimension in increasing order (storage owned by the segment).
   std::vector<std::uint32_t>* births_by_dimension = nullptr;
   std::array<Count, config::omega_slots> faces_by_dimension{};
@@ -69,7 +72,10 @@ class ApparentPairReduction {
     w.faces_by_dimension.fill(0);
     w.column_additions = w.apparent_pairs = w.cleared_columns = 0;
     w.sieve->reset(lo, hi);
-    w.sieve->next_block_codes(w.codes.data());
+    w.sieve->next_block_codes(w.codes.get());
+    // Births per dimension change slowly from segment to segment: reserve what the last one had.
+    for (std::size_t d = 0; d < w.last_births.size(); ++d)
+      w.births_by_dimension[d].reserve(w.last_births[d] + w.last_births[d] / 8 + 16);
     // Only candidates need their primes in the full complex: k not divisible by q0 = 2 with 2k > n.
     const Natural factor_lo = full_ ? std::max(lo, birth_limit_ + 1) : lo;
     const Natural birth_limit = birth_limit_;
@@ -112,6 +118,7 @@ class ApparentPairReduction {
       // A zero column that no apparent column clears: an essential class.
       w.births_by_dimension[static_cast<std::size_t>(dim)].push_back(static_cast<std::uint32_t>(k) | essential_flag);
     }
+    for (std::size_t d = 0; d < w.last_births.size(); ++d) w.last_births[d] = w.births_by_dimension[d].size();
   }
 
  private:
@@ -137,8 +144,7 @@ class ApparentPairReduction {
   // Records the base primes dividing each k in [factor_lo, hi); in the full complex only odd k
   // are ever read, so 2 and the even multiples are skipped.
   void factor_segment(Worker& w, Natural lo, Natural hi, Natural factor_lo) const {
-    std::fill(w.prime_count.begin() + static_cast<std::ptrdiff_t>(factor_lo - lo),
-              w.prime_count.begin() + static_cast<std::ptrdiff_t>(hi - lo), std::uint8_t{0});
+    std::fill(w.prime_count.get() + (factor_lo - lo), w.prime_count.get() + (hi - lo), std::uint8_t{0});
     const bool odd_only = full_;
     for (const auto p32 : base_primes_) {
       const Natural p = p32;
@@ -296,9 +302,9 @@ std::optional<PersistenceResult> persistence_by_apparent_pairs(Natural n, const 
   std::vector<Worker> workers(threads);
   for (auto& w : workers) {
     w.sieve = std::make_unique<arith::SegmentedSieve>(tables, segment_size);
-    w.codes.resize(segment_size);
-    w.prime_count.resize(segment_size);
-    w.small_primes.resize(segment_size * max_primes);
+    w.codes.reset(new arith::FactorCode[segment_size]);
+    w.prime_count.reset(new std::uint8_t[segment_size]);
+    w.small_primes.reset(new std::uint16_t[segment_size * max_primes]);
     w.touched.reserve(mask_space);
   }
   const std::size_t segments = static_cast<std::size_t>((n - 1) / segment_size + 1);

@@ -1,6 +1,6 @@
 // SPDX-License-Identifier: MIT
-// `sqfc demo --to 1e5 --out-dir DIR`: the worked scenario writes its table, events, b-files and
-// manifests, prints a summary and exits 0.
+// `sqfc demo --to 1e5 --out-dir DIR`: the worked scenario writes its table, events, b-files,
+// manifests, every kind of picture and a check report, prints a summary and exits 0.
 #include <gtest/gtest.h>
 
 #include <cmath>
@@ -22,11 +22,21 @@ TEST(Demo, WritesEveryFileAndASummary) {
   EXPECT_EQ(list_dir(dir.work()), std::vector<std::string>{"poster"});
   const std::vector<std::string> expected_files = {"b1.bfile.txt",
                                                    "b1.bfile.txt.manifest.json",
+                                                   "barcode.csv",
+                                                   "check_report.json",
+                                                   "check_report.txt",
+                                                   "envelope.csv",
                                                    "events.csv",
+                                                   "fredholm.csv",
+                                                   "fredholm.csv.manifest.json",
+                                                   "green_histogram.csv",
+                                                   "homology.csv",
+                                                   "homology.csv.manifest.json",
                                                    "liouville.bfile.txt",
                                                    "liouville.bfile.txt.manifest.json",
                                                    "mertens.bfile.txt",
                                                    "mertens.bfile.txt.manifest.json",
+                                                   "pictures",
                                                    "squarefree.bfile.txt",
                                                    "squarefree.bfile.txt.manifest.json",
                                                    "table.csv",
@@ -41,7 +51,36 @@ TEST(Demo, WritesEveryFileAndASummary) {
     EXPECT_EQ(m.at("checks_passed"), true) << name;
     ++manifests;
   }
-  EXPECT_EQ(manifests, 5);
+  EXPECT_EQ(manifests, 7);
+
+  // Every picture kind in all three formats, each with its data file and gnuplot script.
+  std::vector<std::string> expected_pictures;
+  for (const std::string kind : {"filtration-barcode", "filtration-diagram", "green-green", "poster-betti", "poster-faces",
+                                 "poster-fredholm", "poster-mertens", "poster-scaled"})
+    for (const std::string ext : {".dat", ".gp", ".pdf", ".png", ".svg"}) expected_pictures.push_back(kind + ext);
+  EXPECT_EQ(list_dir(dir.path("poster/pictures")), expected_pictures);
+  for (const auto& name : expected_pictures) {
+    const auto bytes = read_file(dir.path("poster/pictures/" + name));
+    if (name.ends_with(".png")) {
+      EXPECT_EQ(bytes.substr(0, 8), std::string("\x89PNG\r\n\x1a\n", 8)) << name;  // PNG signature (common practice)
+    } else if (name.ends_with(".pdf")) {
+      EXPECT_EQ(bytes.substr(0, 5), "%PDF-") << name;
+    } else if (name.ends_with(".svg")) {
+      EXPECT_NE(bytes.find("<svg"), std::string::npos) << name;
+    }
+  }
+
+  // The check report: the identity suite passed to N, and both b-files read back equal.
+  const auto report = read_file(dir.path("poster/check_report.txt"));
+  EXPECT_NE(report.find("range: n = 1..100000"), std::string::npos) << report;
+  EXPECT_NE(report.find("verdict: PASS"), std::string::npos) << report;
+  EXPECT_EQ(report.find("FAIL "), std::string::npos) << report;
+  std::size_t bfile_verdicts = 0;
+  for (auto at = report.find("b-file check"); at != std::string::npos; at = report.find("b-file check", at + 1))
+    ++bfile_verdicts;
+  EXPECT_EQ(bfile_verdicts, 2u) << report;
+  const auto report_json = nlohmann::json::parse(read_file(dir.path("poster/check_report.json")));
+  EXPECT_FALSE(report_json.empty());
 
   // The poster table: all columns of N = 10^5 (D = 5: 30030 <= 10^5 < 510510, OEIS A002110),
   // 20 log points per decade, ending at N with the published values.
@@ -130,11 +169,12 @@ TEST(Demo, WritesEveryFileAndASummary) {
   int patterns = 0;
   for (const std::string pattern :
        {R"(poster/table\.csv)", R"(poster/events\.csv)", R"(poster/mertens\.bfile\.txt)", R"(M = -48\b)",
-        R"(Q = 60794\b)", R"(dim 2 at n = 105\b)", R"(identity checks: all passed)"}) {
+        R"(Q = 60794\b)", R"(dim 2 at n = 105\b)", R"(pictures: 24 files)", R"(check report: .*poster/check_report\.txt)",
+        R"(identity checks: all passed)"}) {
     EXPECT_TRUE(std::regex_search(r.out, std::regex(pattern))) << "summary lacks /" << pattern << "/\n" << r.out;
     ++patterns;
   }
-  EXPECT_EQ(patterns, 7);
+  EXPECT_EQ(patterns, 9);
 }
 
 }  // namespace

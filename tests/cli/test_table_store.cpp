@@ -128,3 +128,21 @@ TEST(TableStore, FileSizeLimitGivesOneErrorAndAResumableStore) {
 }
 
 }  // namespace
+
+namespace {
+
+TEST(TableStore, EnvelopesAreRefusedWithAStore) {
+  // The store keeps block summaries, not envelope columns: a resumed envelope would be partial.
+  for (const std::vector<std::string>& extra : {std::vector<std::string>{"--envelope", "env.csv"}, std::vector<std::string>{"--plot"}}) {
+    ScratchDir dir;
+    std::vector<std::string> args = {"table", "--to", "1000", "--out", "t.csv", "--store", "run.db"};
+    args.insert(args.end(), extra.begin(), extra.end());
+    const auto r = run_sqfc(dir, args);
+    EXPECT_EQ(r.exit_code, 2) << describe(r);
+    EXPECT_EQ(std::count(r.err.begin(), r.err.end(), '\n'), 1) << r.err;
+    EXPECT_NE(r.err.find("cannot be combined with --store"), std::string::npos) << r.err;
+    EXPECT_TRUE(list_dir(dir.work()).empty()) << describe(r);
+  }
+}
+
+}  // namespace
