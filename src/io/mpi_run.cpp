@@ -7,6 +7,7 @@
 #include <algorithm>
 #include <chrono>
 #include <limits>
+#include <list>
 #include <thread>
 #include <vector>
 
@@ -27,14 +28,14 @@ void check(int rc, const char* what) {
 
 // OpenMPI's blocking calls spin while they wait, taking a core from this rank's own sieve
 // threads (and, on a shared machine, from the other ranks). Waiting by polling with short
-// sleeps leaves the core free; the sleep grows from 20 to 200 microseconds, small next to the
+// sleeps leaves the core free; the sleep grows from 20 to 50 microseconds, small next to the
 // ~10 ms a segment of 2^22 values takes to sieve.
 template <class Ready>
 void wait_politely(Ready&& ready) {
   std::chrono::microseconds pause{20};
   while (!ready()) {
     std::this_thread::sleep_for(pause);
-    pause = std::min(pause * 2, std::chrono::microseconds{200});
+    pause = std::min(pause * 2, std::chrono::microseconds{50});
   }
 }
 
@@ -49,6 +50,56 @@ void send_bytes(const Bytes& bytes, int to, int tag) {
     return done != 0;
   });
 }
+
+// Sends that complete in the background. A message above OpenMPI's eager limit (a few KiB
+// over shared memory) is sent by rendezvous: a blocking send would hold this rank until the
+// receiver posts its receive, which it does only when it needs the message, after its own
+// sieving, and so would serialise the ranks' sieving. MPI keeps the order of messages between
+// two ranks with the same tag, so the receiver still sees them in sending order.
+class BackgroundSends {
+ public:
+  BackgroundSends() = default;
+  BackgroundSends(const BackgroundSends&) = delete;
+  BackgroundSends& operator=(const BackgroundSends&) = delete;
+  ~BackgroundSends() {
+    // Sends are pending here only when a run failed and MPI_Abort follows: the buffers are left
+    // allocated rather than freed under MPI's feet.
+    if (!pending_.empty()) (void)new std::list<Slot>(std::move(pending_));
+  }
+
+  void send(Bytes bytes, int to, int tag) {
+    reap();
+    if (bytes.size() > static_cast<std::size_t>(std::numeric_limits<int>::max()))
+      throw IoError("MPI: a segment message exceeds 2 GiB; use a smaller --every or fewer events");
+    auto& slot = pending_.emplace_back();  // a list: the buffer stays put while MPI reads it
+    slot.bytes = std::move(bytes);
+    check(MPI_Isend(slot.bytes.data(), static_cast<int>(slot.bytes.size()), MPI_BYTE, to, tag, MPI_COMM_WORLD,
+                    &slot.request),
+          "send");
+  }
+  // Waits until every message has been delivered.
+  void finish() {
+    wait_politely([&] {
+      reap();
+      return pending_.empty();
+    });
+  }
+
+ private:
+  struct Slot {
+    Bytes bytes;
+    MPI_Request request = MPI_REQUEST_NULL;
+  };
+  std::list<Slot> pending_;
+
+  void reap() {
+    for (auto it = pending_.begin(); it != pending_.end();) {
+      int done = 0;
+      check(MPI_Test(&it->request, &done, MPI_STATUS_IGNORE), "test");
+      it = done ? pending_.erase(it) : std::next(it);
+    }
+  }
+};
 
 Bytes receive_bytes(int from, int tag) {
   MPI_Status status;
@@ -138,13 +189,15 @@ class WorkerSink : public track::TableSink {
   void on_segment_committed(const track::SegmentCommit& c) override {
     // The checkpoint first: it is small and unblocks the next rank at once.
     if (rank_ + 1 < ranks_ && c.index + 1 < segment_count_)
-      send_bytes(encode_checkpoint_message(c.index, *c.after), static_cast<int>(rank_ + 1), tag_checkpoint);
-    send_bytes(encode_segment(c, rows_, events_), 0, tag_segment);
+      sends_.send(encode_checkpoint_message(c.index, *c.after), static_cast<int>(rank_ + 1), tag_checkpoint);
+    sends_.send(encode_segment(c, rows_, events_), 0, tag_segment);
     rows_.clear();
     events_.clear();
   }
+  void finish() { sends_.finish(); }
 
  private:
+  BackgroundSends sends_;
   unsigned rank_, ranks_;
   Natural segment_count_;
   std::vector<track::TableRow> rows_;
@@ -163,8 +216,9 @@ class RootSink : public track::TableSink {
     last_ = *c.after;
     next_ = c.index + 1;
     if (ranks_ > 1 && c.index + 1 < segment_count_)
-      send_bytes(encode_checkpoint_message(c.index, *c.after), 1, tag_checkpoint);
+      sends_.send(encode_checkpoint_message(c.index, *c.after), 1, tag_checkpoint);
   }
+  void finish() { sends_.finish(); }
   // Writes the foreign segments before `upto` and returns the checkpoint after the last.
   track::RunCheckpoint drain(Natural upto) {
     for (; next_ < upto; ++next_) {
@@ -187,6 +241,7 @@ class RootSink : public track::TableSink {
   [[nodiscard]] const track::RunCheckpoint& last() const { return last_; }
 
  private:
+  BackgroundSends sends_;
   track::TableSink& inner_;
   unsigned ranks_;
   Natural segment_count_;
@@ -254,7 +309,9 @@ track::TableRunReport run_table_distributed(const track::TableRunOptions& option
     run.await_checkpoint = [previous](Natural g) {
       return decode_checkpoint_message(receive_bytes(static_cast<int>(previous), tag_checkpoint), g - 1);
     };
-    return track::run_table(run, sink);
+    auto report = track::run_table(run, sink);
+    sink.finish();
+    return report;
   }
 
   std::unique_ptr<track::TableSink> store_sink = store ? make_store_sink(*store) : nullptr;
@@ -263,6 +320,7 @@ track::TableRunReport run_table_distributed(const track::TableRunOptions& option
   run.await_checkpoint = [&root](Natural g) { return root.drain(g); };
   track::TableRunReport report = track::run_table(run, root, progress);
   root.drain(segment_count);  // the segments after rank 0's last one
+  root.finish();
   if (store) {
     replay_store(*store, output);
     return report_from_store(*store);

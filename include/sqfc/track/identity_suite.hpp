@@ -21,7 +21,7 @@ inline constexpr Natural max_identity_suite_n = 100'000'000ULL;
 /// The sub-ranges of the expensive checks (each is also cut to --to). Defaults keep
 /// `sqfc check --to 1e6` well inside a minute on two cores (tests/bench/bench_check.sh).
 struct IdentitySuiteBounds {
-  Natural persistence_to = 10'000'000;    ///< direct persistent homology (compute_persistence; 1.4 s at 10^7)
+  Natural persistence_to = 10'000'000;    ///< direct persistent homology (compute_persistence; 0.2 s at 10^7)
   Natural flint_determinant_to = 1000;    ///< FLINT leading principal minors of 1 + A(H_n) (608 vertices)
   Natural bordered_to = 3000;             ///< bordered exact inverse of 1 + A(H_n) (1824 vertices)
   Natural green_every_n_to = 300;         ///< all Green entries compared at every n up to this, and at bordered_to
