@@ -2,6 +2,7 @@
 // Shared pieces of the isolated-value tests: prefix sums by the segmented sieve (the
 // independent method; the sieve itself is checked against trial division, FLINT and PARI in
 // test_sieve*.cpp) and the sieve limits that split the computation differently.
+// Expected values: all come from the segmented sieve oracle here; no outside value is used.
 #pragma once
 
 #include <cstdint>

@@ -2,6 +2,8 @@
 // `sqfc plot` and the --plot / --envelope options run as a program: envelopes keep every extreme
 // of the full series (compared with `sqfc table --every 1`), pictures beside each output, and
 // one-line refusals with exit code 2 that leave no file behind.
+// Expected values: every extreme is computed from a full `sqfc table --every 1` run (the
+// oracle); no outside value is used.
 #include <gtest/gtest.h>
 
 #include <map>

@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 // Pictures drawn by the binary: `sqfc table --plot`, `sqfc plot` from every input, and --plot on
 // homology and fredholm (gnuplot runs, hence slow).
+// Expected values: file signatures and well-formedness only (PNG signature, SVG parsed as XML:
+// common practice); the picture sizes are the ones the tests ask for.
 #include <gtest/gtest.h>
 
 #include "cli_runner.hpp"

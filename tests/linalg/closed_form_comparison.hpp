@@ -2,7 +2,8 @@
 // The entry-by-entry comparison of the closed-form Green function (design.md identity 6) with the
 // bordered inverse, for every n up to a limit; shared by the default and the slow test files.
 // Expected values: neither side is trusted alone; the bordered inverse (exact integer bordering)
-// and the closed form of design.md identity 6 are two independent routes to g_n.
+// and the closed form of design.md identity 6 are two independent routes to g_n (the oracle is
+// the bordered inverse, itself checked against FLINT in test_fredholm_checks*.cpp).
 #pragma once
 
 #include <cstdint>

@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 // Seeds and iteration scaling for randomized tests (SQFC_TEST_SEED, SQFC_TEST_MULTIPLIER).
+// No expected values live here: the default seed is an arbitrary fixed number (common practice).
 #pragma once
 
 #include <cstdint>
