@@ -38,7 +38,8 @@ void add_demo_command(CLI::App& app, DemoArguments& a) {
 int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
   // Validate before creating anything, so a bad argument leaves no folder behind.
   parse_number_option(a.to, "--to", 1, config::max_sieve_n);
-  if (a.threads) parse_number_option(*a.threads, "--threads", 1, 256);
+  const unsigned threads =
+      a.threads ? static_cast<unsigned>(parse_number_option(*a.threads, "--threads", 1, 256)) : default_thread_count();
   if (a.out_dir.empty()) throw InvalidArgument("--out-dir: empty path");
   io::ensure_directory(a.out_dir);
   const auto started = std::chrono::steady_clock::now();
@@ -150,7 +151,7 @@ int run_demo_command(const DemoArguments& a, const Invocation& invocation) {
   // compared with sqfc's own values term by term.
   track::IdentitySuiteOptions suite;
   suite.to = std::min<Natural>(n_max, 1'000'000);
-  suite.threads = a.threads ? static_cast<unsigned>(parse_number_option(*a.threads, "--threads", 1, 256)) : default_thread_count();
+  suite.threads = threads;
   const auto suite_report = track::run_identity_suite(suite);
   const std::string report_path = a.out_dir + "/check_report.txt";
   {

@@ -63,9 +63,13 @@ int main(int argc, char** argv) {
   if (argc >= 2 && argv[1][0] != '-') {
     const std::string word = argv[1];
     bool known = false;
-    for (const auto* sub : app.get_subcommands({})) known = known || sub->get_name() == word;
+    std::string names;  // in registration order, so the message never lags behind the commands
+    for (const auto* sub : app.get_subcommands({})) {
+      known = known || sub->get_name() == word;
+      names += (names.empty() ? "" : ", ") + sub->get_name();
+    }
     if (!known) {
-      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: table, value, fredholm, homology, face, complex, check, plot, demo, runs; see sqfc --help)\n";
+      std::cerr << "sqfc: error: unknown command '" << one_line(word) << "' (commands: " << names << "; see sqfc --help)\n";
       return sqfc::exit_code::bad_input;
     }
   }

@@ -90,7 +90,7 @@ class ApparentPairReduction {
       int known = 0;  // primes of k read so far (0: not needed yet)
       if (!full_) {
         known = primes_of(w, k, lo, primes);
-        if (!accepted(k, primes, known)) continue;
+        if (!family_accepts(family_, k, primes[known - 1], known)) continue;
       }
       const int dim = omega - 1;
       ++w.faces_by_dimension[static_cast<std::size_t>(dim)];
@@ -132,13 +132,6 @@ class ApparentPairReduction {
 
   [[nodiscard]] int max_dimension() const noexcept {
     return family_.max_dimension ? *family_.max_dimension : config::omega_slots;
-  }
-
-  bool accepted(Natural k, const Natural* primes, int count) const {
-    if (family_.max_dimension && count - 1 > *family_.max_dimension) return false;
-    if (family_.smooth_bound && primes[count - 1] > *family_.smooth_bound) return false;
-    if (family_.coprime_to && std::gcd(k, *family_.coprime_to) != 1) return false;
-    return true;
   }
 
   // Records the base primes dividing each k in [factor_lo, hi); in the full complex only odd k

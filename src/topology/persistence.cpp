@@ -45,13 +45,6 @@ int squarefree_primes(const std::vector<std::uint32_t>& spf, Natural k, std::uin
   return w;
 }
 
-bool accepted(const FaceFamily& family, Natural k, const std::uint32_t* primes, int w) {
-  if (family.max_dimension && w - 1 > *family.max_dimension) return false;
-  if (family.smooth_bound && primes[w - 1] > *family.smooth_bound) return false;
-  if (family.coprime_to && std::gcd(k, *family.coprime_to) != 1) return false;
-  return true;
-}
-
 }  // namespace
 
 PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsigned field) {
@@ -78,7 +71,7 @@ PersistenceResult compute_persistence(Natural n, const FaceFamily& family, unsig
   std::uint32_t primes[16];
   for (Natural k = 2; k <= n; ++k) {
     const int w = squarefree_primes(spf, k, primes);
-    if (w <= 0 || !accepted(family, k, primes, w)) continue;
+    if (w <= 0 || !detail::family_accepts(family, k, primes[w - 1], w)) continue;
     if (faces.size() < static_cast<std::size_t>(w)) faces.resize(static_cast<std::size_t>(w));
     faces[static_cast<std::size_t>(w - 1)].push_back(static_cast<std::uint32_t>(k));
   }
