@@ -33,6 +33,18 @@ class MobiusSweep {
   /// The u that add_mertens_target(x) uses: ceil(x / limit).
   [[nodiscard]] Natural split_for(Natural x) const noexcept { return x / limit_ + (x % limit_ != 0 ? 1 : 0); }
 
+  /// Where each target term switches from lookups to grouped sums: at n = c isqrt(x/m)
+  /// (at least floor(u/m)). Any c in (0, 4] gives the same result; only the cost moves.
+  /// Pre: called before add_mertens_target; 0 < c <= 4 (checked; InvalidArgument).
+  void set_lookup_share(double c);
+  /// The c that add_mertens_target uses; default_lookup_share unless set.
+  [[nodiscard]] double lookup_share() const noexcept { return lookup_share_; }
+  /// The default c, measured on the development machine (docs/algorithms/mertens-isolated.md).
+  static constexpr double default_lookup_share = 0.4;
+
+  /// Use the portable inner loops even where the AVX-512 ones would run (tests compare the two).
+  void use_portable_kernels(bool portable) noexcept { portable_kernels_ = portable; }
+
   /// Runs the pass; returns the value of every slot. The result does not depend on threads.
   /// Pre: threads >= 1 (checked). Throws: what progress throws; InvalidArgument.
   std::vector<Wide> run(unsigned threads, const std::function<void(double)>& progress);
@@ -56,6 +68,8 @@ class MobiusSweep {
 
  private:
   Natural limit_;
+  bool portable_kernels_ = false;
+  double lookup_share_ = default_lookup_share;
   std::vector<Wide> constants_;
   std::vector<Point> points_;
   std::vector<Term> lookup_terms_;  // terms with n_first <= n_last

@@ -206,6 +206,35 @@ TEST(IsolatedValues, SameResultForEverySplitAndThreadCount) {
   EXPECT_EQ(cases, 9U);
 }
 
+TEST(IsolatedValues, SameResultWithBothKernelsAndEveryLookupShare) {
+  // The portable scalar loops against the AVX-512 ones (the same code path where the CPU lacks
+  // AVX-512), and the lookup/grouped split moved from nearly all grouped to nearly all
+  // lookups: M, L and Q must not move.
+  std::mt19937_64 rng(20261202);
+  std::uint64_t cases = 0;
+  for (int i = 0; i < 24; ++i) {
+    const Natural x = std::uniform_int_distribution<Natural>(1'000'000, 20'000'000'000ULL)(rng);
+    IsolatedOptions portable = with(0, 1);
+    portable.portable_kernels = true;
+    const auto reference = sqfc::arith::mertens_liouville_isolated(x, portable);
+    const auto q_reference = sqfc::arith::squarefree_isolated(x, portable);
+    for (const double share : {0.0, 0.05, 1.0, 3.5}) {
+      IsolatedOptions o = with(0, 1 + static_cast<unsigned>(i % 2));
+      o.lookup_share = share;
+      const auto r = sqfc::arith::mertens_liouville_isolated(x, o);
+      EXPECT_EQ(r.mertens, reference.mertens) << "x=" << x << " share=" << share;
+      EXPECT_EQ(r.liouville, reference.liouville) << "x=" << x << " share=" << share;
+      EXPECT_EQ(sqfc::arith::squarefree_isolated(x, o), q_reference) << "x=" << x << " share=" << share;
+      ++cases;
+    }
+  }
+  EXPECT_EQ(sqfc::arith::mertens_isolated(10'000'000'000'000ULL, with(0, 2)), 599582);  // OEIS A084237
+  IsolatedOptions portable = with(0, 2);
+  portable.portable_kernels = true;
+  EXPECT_EQ(sqfc::arith::mertens_isolated(10'000'000'000'000ULL, portable), 599582);  // OEIS A084237
+  EXPECT_EQ(cases, 96U);
+}
+
 TEST(IsolatedValues, ConsecutiveDifferencesAreMuByFactoring) {
   // M(x) - M(x - 1) = mu(x) and L(x) - L(x - 1) = lambda(x), mu and lambda of x by FLINT factoring.
   std::uint64_t cases = 0;
@@ -242,6 +271,11 @@ TEST(IsolatedValues, PreconditionsAreChecked) {
   EXPECT_THROW(sqfc::arith::squarefree_isolated(sqfc::arith::max_isolated_squarefree_x + 1), InvalidArgument);
   EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000, with(1000)), InvalidArgument);  // Y = isqrt(x)
   EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000, with(0, 0)), InvalidArgument);  // no threads
+  IsolatedOptions bad_share;
+  bad_share.lookup_share = 4.5;
+  EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000, bad_share), InvalidArgument);
+  bad_share.lookup_share = -1;
+  EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000, bad_share), InvalidArgument);
   EXPECT_THROW(sqfc::arith::fredholm_from_counts(2, 1), sqfc::InternalError);           // Q + M odd
   EXPECT_EQ(sqfc::arith::fredholm_from_counts(1, 1), 1);  // x = 1: the empty product
 }

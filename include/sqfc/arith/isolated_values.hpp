@@ -26,13 +26,20 @@ struct IsolatedOptions {
   /// (default_mertens_sieve_limit). Any Y with sqrt(x) < Y is valid; tests vary it to check
   /// that the result does not depend on the split.
   Natural sieve_limit = 0;
+  /// Where each Deléglise–Rivat term switches from lookups of M to grouped mu sums: at
+  /// n = c sqrt(x/m). 0 chooses the measured default; any c in (0, 4] gives the same result
+  /// (tests vary it), only the time moves.
+  double lookup_share = 0;
   /// Called now and then with the fraction done in [0, 1], one call at a time (under a lock,
   /// from any worker thread). It may throw to abort the run (the exception is rethrown).
   std::function<void(double)> progress;
+  /// Run the portable inner loops even on a CPU with AVX-512 (the default picks the fastest
+  /// the CPU has). Both give the same result; tests compare them.
+  bool portable_kernels = false;
 };
 
-/// The sieve limit Y that mertens_isolated(x) uses by default: about 0.7 x^(2/3), at least
-/// min(x + 1, 2^20), measured to balance the sieve against the lookups on a 2-core Xeon.
+/// The sieve limit Y that mertens_isolated(x) uses by default: about 0.5 x^(2/3), at least
+/// min(x + 1, 2^20), measured to balance the sieve against the lookups on a 2-core EPYC.
 Natural default_mertens_sieve_limit(Natural x);
 
 /// M(x) = sum_{k <= x} mu(k) by the Deléglise–Rivat identity

@@ -1,0 +1,37 @@
+// SPDX-License-Identifier: MIT
+// The two inner loops of the mu sweep (lookup runs and mu-weighted quotient sums), in a
+// portable version and an AVX-512 version chosen at run time.
+#pragma once
+
+#include <cstddef>
+#include <cstdint>
+
+#include "sqfc/core/types.hpp"
+
+namespace sqfc::arith::detail {
+
+/// Which implementation of the inner loops runs. Both give the same sums; tests compare them.
+enum class SweepKernels { portable, avx512 };
+
+/// avx512 when this CPU has AVX-512 F and DQ (checked once), else portable.
+SweepKernels fastest_sweep_kernels() noexcept;
+
+/// The sum of m_local[floor(x / n) - a] over n in [n_low, n_high].
+/// Pre: 1 <= n_low <= n_high < 2^53; x_double is x rounded to double; every quotient
+/// floor(x / n) lies in [a, a + size of m_local) and is below 2^44. Not checked (inner loop).
+/// Complexity: n_high - n_low + 1 divisions (eight per instruction in the AVX-512 version).
+SignedSum lookup_run_sum(SweepKernels kernels, Natural x, double x_double, Natural n_low, Natural n_high, Natural a,
+                         const std::int32_t* m_local) noexcept;
+
+/// out[i] = mu[0] + ... + mu[i] for i < len; returns the total (0 for len = 0).
+/// Pre: len <= 2^24, so no partial sum leaves int32. Complexity: len additions.
+std::int32_t prefix_sums(SweepKernels kernels, const std::int8_t* mu, std::size_t len, std::int32_t* out) noexcept;
+
+/// The sum of floor(x / v[i]) over i < count, where inverse[i] is 1 / v[i] rounded to double.
+/// Pre: x / v[i] < 2^48 for every i and count <= 2^17, so that eight 64-bit lane sums cannot
+/// carry; v[i] >= 1. Not checked (inner loop).
+/// Complexity: count multiplications, no division.
+WideUnsigned quotient_sum(SweepKernels kernels, Natural x, double x_double, const Natural* v, const double* inverse,
+                          std::size_t count) noexcept;
+
+}  // namespace sqfc::arith::detail
