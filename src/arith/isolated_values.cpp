@@ -66,7 +66,7 @@ SignedSum mertens_isolated(Natural x, const IsolatedOptions& options) {
 }
 
 MertensLiouville mertens_liouville_isolated(Natural x, const IsolatedOptions& options) {
-  check_x(x, max_isolated_mertens_x, "Liouville");
+  check_x(x, max_isolated_liouville_x, "Liouville");
   const Natural y = checked_sieve_limit(x, options);
   detail::MobiusSweep sweep(y);
   sweep.use_portable_kernels(options.portable_kernels);

@@ -40,8 +40,8 @@ constexpr Natural default_omega_limit = 1'000'000'000'000ULL;        // 10^12
 Natural bound_of(Quantity q) {
   switch (q) {
     case Quantity::mertens:
-    case Quantity::liouville:
     case Quantity::fredholm: return arith::max_isolated_mertens_x;
+    case Quantity::liouville: return arith::max_isolated_liouville_x;
     case Quantity::squarefree: return arith::max_isolated_squarefree_x;
     case Quantity::faces:
     case Quantity::betti: return arith::max_omega_counting_x;

@@ -267,6 +267,8 @@ TEST(IsolatedValues, PreconditionsAreChecked) {
   EXPECT_THROW(sqfc::arith::mertens_isolated(0), InvalidArgument);
   EXPECT_THROW(sqfc::arith::mertens_isolated(sqfc::arith::max_isolated_mertens_x + 1), InvalidArgument);
   EXPECT_THROW(sqfc::arith::liouville_isolated(0), InvalidArgument);
+  EXPECT_THROW(sqfc::arith::liouville_isolated(sqfc::arith::max_isolated_liouville_x + 1), InvalidArgument);
+  EXPECT_THROW(sqfc::arith::mertens_liouville_isolated(sqfc::arith::max_isolated_liouville_x + 1), InvalidArgument);
   EXPECT_THROW(sqfc::arith::squarefree_isolated(0), InvalidArgument);
   EXPECT_THROW(sqfc::arith::squarefree_isolated(sqfc::arith::max_isolated_squarefree_x + 1), InvalidArgument);
   EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000, with(1000)), InvalidArgument);  // Y = isqrt(x)

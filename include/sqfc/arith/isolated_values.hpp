@@ -9,11 +9,15 @@
 
 namespace sqfc::arith {
 
-/// Largest x that mertens_isolated() and liouville_isolated() accept. The 128-bit bounds of
-/// docs/algorithms/mertens-isolated.md hold for every x < 2^64; this is the largest x the
-/// results were compared at (against published values, the sieve and the identity
-/// M(x) - M(x-1) = mu(x)), so nothing beyond it is claimed.
-inline constexpr Natural max_isolated_mertens_x = 10'000'000'000'000'000ULL;  // 10^16
+/// Largest x that mertens_isolated() accepts (and the Fredholm sign, which needs M and Q).
+/// The 128-bit bounds of docs/algorithms/mertens-isolated.md hold for every x < 2^64; this is
+/// the largest x the result was compared at (M(10^17) against OEIS A084237 in a slow test,
+/// M(10^16) - M(10^16 - 1) = mu(10^16) by factoring), so nothing beyond it is claimed.
+inline constexpr Natural max_isolated_mertens_x = 100'000'000'000'000'000ULL;  // 10^17
+
+/// Largest x that liouville_isolated() and mertens_liouville_isolated() accept: 10^16, the
+/// largest x where L was compared (L(x) - L(x-1) = lambda(x) next to 10^15 and 10^16).
+inline constexpr Natural max_isolated_liouville_x = 10'000'000'000'000'000ULL;  // 10^16
 
 /// Largest x that squarefree_isolated() accepts: 10^19 (Q(10^18) and Q near 10^19 compared in tests).
 inline constexpr Natural max_isolated_squarefree_x = 10'000'000'000'000'000'000ULL;
@@ -62,7 +66,8 @@ struct MertensLiouville {
 /// L(x) = sum_{k <= x} lambda(k) = sum_{d <= sqrt x} M(floor(x/d^2)) (design.md identity 7),
 /// together with M(x) (the term d = 1). The M(floor(x/d^2)) >= Y are Deléglise–Rivat targets
 /// sharing one sweep; the smaller ones are read from the sweep, grouped by value for d > x^(1/3).
-/// Pre and Throws: as mertens_isolated.
+/// Pre: 1 <= x <= max_isolated_liouville_x (checked; InvalidArgument); sieve_limit as for
+/// mertens_isolated. Throws: as mertens_isolated.
 /// Complexity: about 1.6 times the lookups of mertens_isolated(x) and the same sieve.
 MertensLiouville mertens_liouville_isolated(Natural x, const IsolatedOptions& options = {});
 
