@@ -2,8 +2,7 @@
 // Slow tests of the isolated M, L, Q (issue 3): every x <= 10^5 with every kind of split and
 // random x <= 10^10 against the segmented sieve, M(10^12), M(10^13) and Q(10^16..10^18)
 // published, Q against the direct sum over d <= sqrt(x), M(2^31..2^40) across splits and
-// thread counts, M(x) - M(x-1) = mu(x) by factoring next to 10^15 and at 10^16, and M at the
-// top of the range, 10^17.
+// thread counts, M(x) - M(x-1) = mu(x) by factoring next to 10^15 and at 10^16, and M(10^17).
 #include "sqfc/arith/isolated_values.hpp"
 
 #include <gtest/gtest.h>
@@ -161,10 +160,12 @@ TEST(IsolatedValuesSlow, ConsecutiveDifferencesAreMuNext1e15And1e16) {
   EXPECT_EQ(cases, 2U);
 }
 
-TEST(IsolatedValuesSlow, MertensAtTheTopOfTheRange) {
-  // max_isolated_mertens_x = 10^17: M(10^17) = -21830254 (OEIS A084237, from memory; the
-  // value this code gave first, before the test was written, in 309 s on two cores).
-  ASSERT_EQ(sqfc::arith::max_isolated_mertens_x, 100'000'000'000'000'000ULL);
+TEST(IsolatedValuesSlow, MertensAt1e17Published) {
+  // M(10^17) = -21830254 (OEIS A084237, from memory; the value this code gave first, before
+  // the test was written, in 309 s on two cores). The top of the range, M(10^18) = -46758740
+  // (A084237), takes about 27 minutes here, too long for the suite: tests/bench/bench_value.sh
+  // --max 18 checks it.
+  ASSERT_EQ(sqfc::arith::max_isolated_mertens_x, 1'000'000'000'000'000'000ULL);
   EXPECT_EQ(sqfc::arith::mertens_isolated(100'000'000'000'000'000ULL, with(0, 2)), -21830254);
 }
 
