@@ -13,6 +13,20 @@ namespace sqfc::arith::detail {
 /// Which implementation of the inner loops runs. Both give the same sums; tests compare them.
 enum class SweepKernels { portable, avx512 };
 
+/// floor(x / n) for a quotient below 2^44 from one double division and one correction: the
+/// double quotient is within 3 * 2^-53 relative of x / n, so its truncation is floor(x / n) or
+/// one off; r = x - q n (exact modulo 2^64, truly in (-n, 2n)) tells which.
+/// Pre: n >= 1, x / n < 2^44, x_double is x rounded to double. Not checked (inner loop).
+inline Natural quotient_small(Natural x, double x_double, Natural n) noexcept {
+  auto q = static_cast<Natural>(x_double / static_cast<double>(n));
+  const auto r = static_cast<std::int64_t>(x - q * n);
+  // Both corrections are rare (the double quotient is off only next to an integer), so the
+  // branches predict well.
+  if (r < 0) --q;
+  else if (static_cast<Natural>(r) >= n) ++q;
+  return q;
+}
+
 /// avx512 when this CPU has AVX-512 F and DQ (checked once), else portable.
 SweepKernels fastest_sweep_kernels() noexcept;
 

@@ -28,19 +28,6 @@ namespace {
 constexpr std::size_t segment_length = std::size_t{1} << 17;
 constexpr std::uint32_t no_term = std::numeric_limits<std::uint32_t>::max();
 
-// floor(x / n) for a quotient below 2^44, from one floating-point division and one
-// correction: the double quotient is within 3 * 2^-53 relative of x/n, so its truncation is
-// floor(x/n) or one off; r = x - q n (exact modulo 2^64, truly in (-n, 2n)) tells which.
-inline Natural quotient_small(Natural x, double x_double, Natural n) noexcept {
-  auto q = static_cast<Natural>(x_double / static_cast<double>(n));
-  const auto r = static_cast<std::int64_t>(x - q * n);
-  // Both corrections are rare (the double quotient is off only next to an integer), so the
-  // branches predict well.
-  if (r < 0) --q;
-  else if (static_cast<Natural>(r) >= n) ++q;
-  return q;
-}
-
 // A mu-only segmented sieve, faster than SegmentedSieve because it keeps one 16-bit word per
 // value: bits 0-11 the sum of round(64 log2 p) over the primes p found, bits 12-14 the number
 // of squares p^2 found, bit 15 the parity of the number of primes (each prime adds 0x8000).
@@ -349,14 +336,15 @@ std::vector<Wide> MobiusSweep::run(unsigned threads, const std::function<void(do
   const Natural segment_total = (range + segment_length - 1) / segment_length;
   std::vector<double> mu_v_prefix(mu_terms_.size() + 1, 0);  // prefix sums of v_max (sorted down)
   for (std::size_t j = 0; j < mu_terms_.size(); ++j) mu_v_prefix[j + 1] = mu_v_prefix[j] + static_cast<double>(mu_terms_[j].v_max);
+  // The number of grouped terms with v_max >= v: a prefix of mu_terms_, sorted down by v_max.
+  auto grouped_terms_reaching = [this](Natural v) {
+    return static_cast<std::size_t>(
+        std::partition_point(mu_terms_.begin(), mu_terms_.end(), [v](const Term& t) { return t.v_max >= v; }) - mu_terms_.begin());
+  };
   // Squarefree pairs (term, v) of the grouped sums with v in [a, b), about 6/pi^2 of all pairs.
   auto grouped_pairs = [&](Natural a, Natural b) {
     if (mu_terms_.empty() || mu_terms_.front().v_max < a) return 0.0;
-    auto first_below = [&](Natural v) {  // first term with v_max < v
-      return static_cast<std::size_t>(std::partition_point(mu_terms_.begin(), mu_terms_.end(), [v](const Term& t) { return t.v_max >= v; }) -
-                                      mu_terms_.begin());
-    };
-    const std::size_t full = first_below(b - 1), partial = first_below(a);
+    const std::size_t full = grouped_terms_reaching(b - 1), partial = grouped_terms_reaching(a);
     const double pairs = static_cast<double>(full) * static_cast<double>(b - a) + (mu_v_prefix[partial] - mu_v_prefix[full]) -
                          static_cast<double>(partial - full) * static_cast<double>(a - 1);
     return 0.608 * pairs;
@@ -485,10 +473,7 @@ std::vector<Wide> MobiusSweep::run(unsigned threads, const std::function<void(do
           link[j] = heads[s];
           heads[s] = static_cast<std::uint32_t>(j);
         }
-        // Grouped terms with v_max >= chunk_lo (a prefix of mu_terms_, sorted down by v_max).
-        const auto mu_in_chunk = static_cast<std::size_t>(
-            std::partition_point(mu_terms_.begin(), mu_terms_.end(), [chunk_lo](const Term& t) { return t.v_max >= chunk_lo; }) -
-            mu_terms_.begin());
+        const std::size_t mu_in_chunk = grouped_terms_reaching(chunk_lo);
         std::size_t mu_lo = 0, mu_hi = mu_in_chunk;
         if (task.groups > 1) {
           for (std::size_t j = 0; j < mu_in_chunk; ++j)

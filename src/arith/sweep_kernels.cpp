@@ -14,17 +14,6 @@
 namespace sqfc::arith::detail {
 namespace {
 
-// floor(x / n) for a quotient below 2^44 from one double division and one correction: the
-// double quotient is within 3 * 2^-53 relative of x / n, so its truncation is floor(x / n) or
-// one off; r = x - q n (exact modulo 2^64, truly in (-n, 2n)) tells which.
-inline Natural quotient_small(Natural x, double x_double, Natural n) noexcept {
-  auto q = static_cast<Natural>(x_double / static_cast<double>(n));
-  const auto r = static_cast<std::int64_t>(x - q * n);
-  if (r < 0) --q;
-  else if (static_cast<Natural>(r) >= n) ++q;
-  return q;
-}
-
 SignedSum lookup_run_sum_portable(Natural x, double x_double, Natural n_low, Natural n_high, Natural a,
                                   const std::int32_t* m_local) noexcept {
   SignedSum sum = 0;

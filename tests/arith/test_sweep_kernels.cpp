@@ -2,7 +2,7 @@
 // The inner loops of the mu sweep (src/arith/sweep_kernels.cpp) against plain integer
 // division: quotients that are exact integers, one below an integer, next to 2^44 and 2^48,
 // dividends near 2^64, and random cases; the AVX-512 version where the CPU has it.
-// Expected values: computed here by the hardware division x / n; no outside value is used.
+// Expected values: the oracle is the hardware division x / n computed in the test; no outside value is used.
 #include <gtest/gtest.h>
 
 #include <cstdint>

@@ -1,5 +1,7 @@
 // SPDX-License-Identifier: MIT
 // The executable's front door: --help, --version, and what happens without a subcommand.
+// Expected values: the version string from sqfc/core/version.hpp and the exit codes of design.md
+// section 4 (common practice: 0 for help, 2 for usage errors); no outside value is used.
 #include <gtest/gtest.h>
 
 #include "cli_runner.hpp"

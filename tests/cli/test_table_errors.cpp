@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 // Bad input to `sqfc table` (design.md section 4): exit code 2, exactly one line on stderr that
 // names the offending option or value, nothing on stdout, and no output or partial file left behind.
+// Expected values: the error contract of design.md section 4 (exit code 2, one line); no
+// outside value is used.
 #include <gtest/gtest.h>
 
 #include "cli_runner.hpp"

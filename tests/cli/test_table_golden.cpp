@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // `sqfc table` reproduces the golden files of tests/data/golden/ byte for byte (their content is
 // verified independently in test_golden_content.cpp), into a file and on standard output.
+// Expected values: the golden files (their sources are named in test_golden_content.cpp).
 #include <gtest/gtest.h>
 
 #include "cli_runner.hpp"

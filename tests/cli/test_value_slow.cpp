@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // Slow `sqfc value` check (issue 3): face counts, Betti numbers, M, Q, L and the Fredholm sign
 // at 10^8 equal those of `sqfc table --to 10^8`.
+// Expected values: the oracle is `sqfc table` (itself checked against OEIS b-files); no outside value is used.
 #include <gtest/gtest.h>
 
 #include "cli_runner.hpp"
