@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // The segmented, threaded mu sweep shared by the isolated M, L and Q (docs/algorithms/mertens-isolated.md).
 #include "detail_mobius_sweep.hpp"
+#include "detail_mu_sieve.hpp"
 #include "detail_sweep_kernels.hpp"
 
 #include <algorithm>
@@ -23,150 +24,8 @@
 namespace sqfc::arith::detail {
 namespace {
 
-// Values per segment: 16-bit sieve words (256 KiB) and the int32 table of M (512 KiB),
-// so both stay in the 2 MiB L2 of the development machine while the lookups hit them.
-constexpr std::size_t segment_length = std::size_t{1} << 17;
+constexpr std::size_t segment_length = sweep_segment_length;
 constexpr std::uint32_t no_term = std::numeric_limits<std::uint32_t>::max();
-
-// A mu-only segmented sieve, faster than SegmentedSieve because it keeps one 16-bit word per
-// value: bits 0-11 the sum of round(64 log2 p) over the primes p found, bits 12-14 the number
-// of squares p^2 found, bit 15 the parity of the number of primes (each prime adds 0x8000).
-// Bounds: for n < 2^44 the log sum is at most 64 * 44 + 6 < 4096 and at most 7 squares divide
-// n (the squares of the first 8 primes multiply to 9.4e13 > 2^44), so no field carries.
-// After the primes p <= P = isqrt(hi - 1), a squarefree n is s * r with r = 1 or one prime
-// r > P >= 1. With 12 primes at most the rounding error is at most 6 units of 1/64 bit, and
-// r >= 2 lowers log2 s by a whole bit, so "log sum < 64 log2 n - 32" detects r exactly.
-class MuSieveTables {
- public:
-  explicit MuSieveTables(Natural max_n) {
-    const auto root = integer_sqrt(max_n);
-    for (const auto p : primes_up_to(root)) {
-      if (p <= 13) continue;
-      primes_.push_back(p);
-      if (p < (1U << 14)) ++small_prime_count_;
-      increments_.push_back(static_cast<std::uint16_t>(log_units(p) + 0x8000U));
-    }
-    for (const auto p : primes_up_to(root)) {
-      if (p < 5) continue;
-      squares_.push_back(static_cast<Natural>(p) * p);
-    }
-  }
-  // The pattern does not depend on max_n: built once per process (thread-safe static init),
-  // so that many small evaluations do not pay 360 KiB of set-up each.
-  static const std::vector<std::uint16_t>& pattern() {
-    static const std::vector<std::uint16_t> words = [] {
-      std::vector<std::uint16_t> w(pattern_period, 0);
-      for (const Natural p : {2ULL, 3ULL, 5ULL, 7ULL, 11ULL, 13ULL}) {
-        const auto inc = static_cast<std::uint16_t>(log_units(p) + 0x8000U);
-        for (Natural i = 0; i < pattern_period; i += p) w[i] = static_cast<std::uint16_t>(w[i] + inc);
-      }
-      for (const Natural q : {4ULL, 9ULL})
-        for (Natural i = 0; i < pattern_period; i += q) w[i] = static_cast<std::uint16_t>(w[i] + 0x1000U);
-      return w;
-    }();
-    return words;
-  }
-  // 4 * 9 * 5 * 7 * 11 * 13: the primes up to 13 and the squares 4 and 9 repeat with this period.
-  static constexpr Natural pattern_period = 180180;
-  static std::uint16_t log_units(Natural p) { return static_cast<std::uint16_t>(std::lround(64.0 * std::log2(static_cast<double>(p)))); }
-  std::vector<std::uint32_t> primes_;
-  std::size_t small_prime_count_ = 0;  // primes_ below 2^14, the L1 sub-block length
-  std::vector<std::uint16_t> increments_;
-  std::vector<Natural> squares_;
-};
-
-class MuSieve {
-  static constexpr std::size_t sub_block = std::size_t{1} << 14;
-
-  static std::int8_t mu_of_word(unsigned x, int threshold) {
-    const unsigned large = static_cast<int>(x & 0xFFFU) < threshold ? 1U : 0U;
-    const unsigned odd = (x >> 15) ^ large;
-    return static_cast<std::int8_t>(((x >> 12) & 7U) != 0 ? 0 : (odd != 0 ? -1 : 1));
-  }
-
- public:
-  MuSieve(const MuSieveTables& tables, std::size_t block)
-      : t_(tables), prime_offset_(tables.primes_.size()), square_offset_(tables.squares_.size()), words_(block) {}
-
-  void reset(Natural lo) {
-    lo_ = lo;
-    for (std::size_t i = 0; i < t_.primes_.size(); ++i) {
-      const Natural p = t_.primes_[i];
-      prime_offset_[i] = static_cast<std::uint32_t>((p - lo % p) % p);
-    }
-    for (std::size_t i = 0; i < t_.squares_.size(); ++i) {
-      const Natural q = t_.squares_[i];
-      square_offset_[i] = (q - lo % q) % q;
-    }
-  }
-
-  // mu(n) for n in [lo, lo + len) into out, then advances lo. Pre: len <= block, lo + len - 1 <= max_n.
-  void next(std::size_t len, std::int8_t* out) {
-    std::uint16_t* w = words_.data();
-    std::size_t phase = static_cast<std::size_t>(lo_ % MuSieveTables::pattern_period);
-    for (std::size_t done = 0; done < len;) {
-      const std::size_t run = std::min<std::size_t>(len - done, MuSieveTables::pattern_period - phase);
-      std::memcpy(w + done, MuSieveTables::pattern().data() + phase, run * sizeof(std::uint16_t));
-      done += run;
-      phase = 0;
-    }
-    const Natural hi = lo_ + len;
-    // Primes below the L1 sub-block length sieve one 32 KiB sub-block at a time (their hits
-    // then stay in L1), the larger ones the whole segment in one go.
-    const std::size_t small_count = t_.small_prime_count_;
-    for (std::size_t sub = 0; sub < len; sub += sub_block) {
-      const std::size_t sub_end = std::min(len, sub + sub_block);
-      for (std::size_t i = 0; i < small_count; ++i) {
-        const std::uint32_t p = t_.primes_[i];
-        const std::uint16_t inc = t_.increments_[i];
-        std::size_t j = sub + prime_offset_[i];
-        for (; j < sub_end; j += p) w[j] = static_cast<std::uint16_t>(w[j] + inc);
-        prime_offset_[i] = static_cast<std::uint32_t>(j - sub_end);
-      }
-    }
-    for (std::size_t i = small_count; i < t_.primes_.size(); ++i) {
-      const std::uint32_t p = t_.primes_[i];
-      const std::uint16_t inc = t_.increments_[i];
-      std::size_t j = prime_offset_[i];
-      for (; j < len; j += p) w[j] = static_cast<std::uint16_t>(w[j] + inc);
-      prime_offset_[i] = static_cast<std::uint32_t>(j - len);
-    }
-    for (std::size_t i = 0; i < t_.squares_.size(); ++i) {
-      const Natural q = t_.squares_[i];
-      Natural j = square_offset_[i];
-      for (; j < len; j += q) w[j] = static_cast<std::uint16_t>(w[j] + 0x1000U);
-      square_offset_[i] = j - len;
-    }
-    // Thresholds 64 log2 n - 32: per n below 2^20, else per run of 2^12 values, over which
-    // 64 log2 n grows by less than 0.4 units (the margin is 26 units either way).
-    constexpr Natural exact_below = Natural{1} << 20;
-    constexpr std::size_t run_length = std::size_t{1} << 12;
-    std::size_t i = 0;
-    for (; i < len && lo_ + i < exact_below; ++i) {
-      const int threshold = static_cast<int>(std::floor(64.0 * std::log2(static_cast<double>(lo_ + i)) - 32.0));
-      out[i] = mu_of_word(w[i], threshold);
-    }
-    while (i < len) {
-      const std::size_t stop = std::min(len, i + run_length);
-      const auto threshold = static_cast<std::uint16_t>(std::floor(64.0 * std::log2(static_cast<double>(lo_ + i)) - 32.0));
-      // Branch-free so that the compiler vectorizes it.
-      for (; i < stop; ++i) {
-        const std::uint16_t x = w[i];
-        const std::uint16_t odd = static_cast<std::uint16_t>((x >> 15) ^ ((x & 0xFFFU) < threshold ? 1U : 0U));
-        const std::int8_t sign = static_cast<std::int8_t>(1 - 2 * odd);
-        out[i] = (x & 0x7000U) != 0 ? std::int8_t{0} : sign;
-      }
-    }
-    lo_ = hi;
-  }
-
- private:
-  const MuSieveTables& t_;
-  std::vector<std::uint32_t> prime_offset_;
-  std::vector<Natural> square_offset_;
-  std::vector<std::uint16_t> words_;
-  Natural lo_ = 1;
-};
 
 }  // namespace
 
