@@ -30,8 +30,9 @@ void check_x(Natural x, Natural max, const char* what) {
 Natural checked_sieve_limit(Natural x, const IsolatedOptions& options) {
   const Natural y = options.sieve_limit != 0 ? options.sieve_limit : default_mertens_sieve_limit(x);
   const Natural root = integer_sqrt(x);
-  if (y <= root || y > (Natural{1} << 40) || y - 1 > config::max_sieve_n)
-    throw InvalidArgument("sieve limit " + std::to_string(y) + " for x = " + std::to_string(x) + " is outside (isqrt(x), 2^40]");
+  // 2^44 is the sweep's own bound (its lookup quotients stay below 2^44).
+  if (y <= root || y > (Natural{1} << 44) || y - 1 > config::max_sieve_n)
+    throw InvalidArgument("sieve limit " + std::to_string(y) + " for x = " + std::to_string(x) + " is outside (isqrt(x), 2^44]");
   if (x >= y && x / y + (x % y != 0 ? 1 : 0) >= y)
     throw InvalidArgument("sieve limit " + std::to_string(y) + " is too small for x = " + std::to_string(x));
   return y;

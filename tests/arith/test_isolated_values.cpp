@@ -272,6 +272,8 @@ TEST(IsolatedValues, PreconditionsAreChecked) {
   EXPECT_THROW(sqfc::arith::squarefree_isolated(0), InvalidArgument);
   EXPECT_THROW(sqfc::arith::squarefree_isolated(sqfc::arith::max_isolated_squarefree_x + 1), InvalidArgument);
   EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000, with(1000)), InvalidArgument);  // Y = isqrt(x)
+  // Above the sweep's 2^44 (lookup quotients must stay below it): refused before any work.
+  EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000'000'000'000'000ULL, with((Natural{1} << 44) + 1)), InvalidArgument);
   EXPECT_THROW(sqfc::arith::mertens_isolated(1'000'000, with(0, 0)), InvalidArgument);  // no threads
   IsolatedOptions bad_share;
   bad_share.lookup_share = 4.5;

@@ -51,7 +51,7 @@ Natural default_mertens_sieve_limit(Natural x);
 /// M(x) = M(u) - sum_{m <= u} mu(m) sum_{u/m < n <= x/m} M(floor(x/(mn))), u = ceil(x/Y),
 /// with every M value below Y read from a segmented, threaded sweep of mu over [1, Y).
 /// Pre: 1 <= x <= max_isolated_mertens_x (checked; InvalidArgument); a custom sieve_limit
-/// must satisfy isqrt(x) < Y <= 2^40 and ceil(x/Y) < Y (checked; InvalidArgument).
+/// must satisfy isqrt(x) < Y <= 2^44 and ceil(x/Y) < Y (checked; InvalidArgument).
 /// Complexity: time O(Y log log Y + sqrt(x * x / Y)), i.e. about x^(2/3) for the default Y;
 /// memory O(sqrt(Y) + x / Y) plus 3 MiB per thread.
 /// Throws: InvalidArgument; whatever options.progress throws.
