@@ -7,6 +7,7 @@
 #include <functional>
 #include <vector>
 
+#include "detail_sweep_kernels.hpp"
 #include "sqfc/core/types.hpp"
 
 namespace sqfc::arith::detail {
@@ -42,8 +43,8 @@ class MobiusSweep {
   /// The default c, measured on the development machine (docs/algorithms/mertens-isolated.md).
   static constexpr double default_lookup_share = 0.4;
 
-  /// Use the portable inner loops even where the AVX-512 ones would run (tests compare the two).
-  void use_portable_kernels(bool portable) noexcept { portable_kernels_ = portable; }
+  /// The inner loops to run (default: the fastest this CPU has). Pre: the CPU can run them.
+  void use_kernels(SweepKernels kernels) noexcept { kernels_ = kernels; }
 
   /// Runs the pass; returns the value of every slot. The result does not depend on threads.
   /// Pre: threads >= 1 (checked). Throws: what progress throws; InvalidArgument.
@@ -68,7 +69,7 @@ class MobiusSweep {
 
  private:
   Natural limit_;
-  bool portable_kernels_ = false;
+  SweepKernels kernels_ = fastest_sweep_kernels();
   double lookup_share_ = default_lookup_share;
   std::vector<Wide> constants_;
   std::vector<Point> points_;

@@ -10,8 +10,10 @@
 
 namespace sqfc::arith::detail {
 
-/// Which implementation of the inner loops runs. Both give the same sums; tests compare them.
-enum class SweepKernels { portable, avx512 };
+/// Which implementation of the inner loops runs. All give the same sums; tests compare them.
+/// avx2 (with FMA) runs the lookup runs and quotient sums four lanes wide and the prefix sums
+/// in the portable loop.
+enum class SweepKernels { portable, avx2, avx512 };
 
 /// floor(x / n) for a quotient below 2^44 from one double division and one correction: the
 /// double quotient is within 3 * 2^-53 relative of x / n, so its truncation is floor(x / n) or
@@ -27,8 +29,11 @@ inline Natural quotient_small(Natural x, double x_double, Natural n) noexcept {
   return q;
 }
 
-/// avx512 when this CPU has AVX-512 F and DQ (checked once), else portable.
+/// avx512 when this CPU has AVX-512 F and DQ, else avx2 when it has AVX2 and FMA, else
+/// portable (checked once).
 SweepKernels fastest_sweep_kernels() noexcept;
+/// Whether this CPU can run the avx2 kernels.
+bool avx2_sweep_kernels_available() noexcept;
 
 /// The sum of m_local[floor(x / n) - a] over n in [n_low, n_high].
 /// Pre: 1 <= n_low <= n_high < 2^53; x_double is x rounded to double; every quotient
@@ -43,7 +48,7 @@ std::int32_t prefix_sums(SweepKernels kernels, const std::int8_t* mu, std::size_
 
 /// The sum of floor(x / v[i]) over i < count, where inverse[i] is 1 / v[i] rounded to double.
 /// Pre: x / v[i] < 2^48 for every i and count <= 2^17, so that eight 64-bit lane sums cannot
-/// carry; v[i] >= 1. Not checked (inner loop).
+/// carry; 1 <= v[i] < 2^52. Not checked (inner loop).
 /// Complexity: count multiplications, no division.
 WideUnsigned quotient_sum(SweepKernels kernels, Natural x, double x_double, const Natural* v, const double* inverse,
                           std::size_t count) noexcept;

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "detail_mobius_sweep.hpp"
+#include "detail_sweep_kernels.hpp"
 #include "sqfc/core/checked.hpp"
 #include "sqfc/core/config.hpp"
 #include "sqfc/core/error.hpp"
@@ -38,6 +39,17 @@ Natural checked_sieve_limit(Natural x, const IsolatedOptions& options) {
   return y;
 }
 
+detail::SweepKernels sweep_kernels(IsolatedKernels kernels) {
+  switch (kernels) {
+    case IsolatedKernels::portable: return detail::SweepKernels::portable;
+    case IsolatedKernels::avx2:
+      if (!detail::avx2_sweep_kernels_available()) throw InvalidArgument("the AVX2 inner loops need a CPU with AVX2 and FMA");
+      return detail::SweepKernels::avx2;
+    case IsolatedKernels::fastest: break;
+  }
+  return detail::fastest_sweep_kernels();
+}
+
 SignedSum narrow(Wide value, const char* what) {
   if (value > static_cast<Wide>(INT64_MAX) || value < static_cast<Wide>(INT64_MIN))
     throw InternalError(std::string(what) + " does not fit 64 bits: " + to_string_wide(value));
@@ -45,6 +57,10 @@ SignedSum narrow(Wide value, const char* what) {
 }
 
 }  // namespace
+
+bool isolated_kernels_available(IsolatedKernels kernels) noexcept {
+  return kernels != IsolatedKernels::avx2 || detail::avx2_sweep_kernels_available();
+}
 
 Natural default_mertens_sieve_limit(Natural x) {
   const double two_thirds = std::pow(static_cast<double>(x), 2.0 / 3.0) * sieve_limit_factor;
@@ -58,7 +74,7 @@ SignedSum mertens_isolated(Natural x, const IsolatedOptions& options) {
   check_x(x, max_isolated_mertens_x, "Mertens");
   const Natural y = checked_sieve_limit(x, options);
   detail::MobiusSweep sweep(y);
-  sweep.use_portable_kernels(options.portable_kernels);
+  sweep.use_kernels(sweep_kernels(options.kernels));
   if (options.lookup_share != 0) sweep.set_lookup_share(options.lookup_share);
   const auto slot = sweep.add_slot();
   const auto mu = detail::mu_table(x >= y ? sweep.split_for(x) : 0);
@@ -70,7 +86,7 @@ MertensLiouville mertens_liouville_isolated(Natural x, const IsolatedOptions& op
   check_x(x, max_isolated_liouville_x, "Liouville");
   const Natural y = checked_sieve_limit(x, options);
   detail::MobiusSweep sweep(y);
-  sweep.use_portable_kernels(options.portable_kernels);
+  sweep.use_kernels(sweep_kernels(options.kernels));
   if (options.lookup_share != 0) sweep.set_lookup_share(options.lookup_share);
   const auto slot_m = sweep.add_slot();
   const auto slot_rest = sweep.add_slot();
@@ -119,7 +135,7 @@ Count squarefree_isolated(Natural x, const IsolatedOptions& options) {
   const auto two_fifths = static_cast<Natural>(2.0 * std::pow(static_cast<double>(x), 0.4));
   const Natural y = std::min(root + 1, std::max({two_fifths, d_top + 2, direct_sieve_limit}));
   detail::MobiusSweep sweep(y);
-  sweep.use_portable_kernels(options.portable_kernels);
+  sweep.use_kernels(sweep_kernels(options.kernels));
   if (options.lookup_share != 0) sweep.set_lookup_share(options.lookup_share);
   const auto slot = sweep.add_slot();
   sweep.add_constant(slot, direct);

@@ -184,7 +184,7 @@ class LookupDensity {
 
 std::vector<Wide> MobiusSweep::run(unsigned threads, const std::function<void(double)>& progress) {
   if (threads < 1) throw InvalidArgument("thread count must be at least 1");
-  const SweepKernels kernels = portable_kernels_ ? SweepKernels::portable : fastest_sweep_kernels();
+  const SweepKernels kernels = kernels_;
   const std::size_t slot_count = constants_.size();
   std::sort(points_.begin(), points_.end(), [](const Point& a, const Point& b) { return a.v < b.v; });
   std::sort(mu_terms_.begin(), mu_terms_.end(), [](const Term& a, const Term& b) { return a.v_max > b.v_max; });

@@ -25,6 +25,7 @@
 namespace {
 
 using sqfc::Natural;
+using sqfc::arith::IsolatedKernels;
 using sqfc::arith::IsolatedOptions;
 using sqfc::testing::split_limits;
 
@@ -206,33 +207,40 @@ TEST(IsolatedValues, SameResultForEverySplitAndThreadCount) {
   EXPECT_EQ(cases, 9U);
 }
 
-TEST(IsolatedValues, SameResultWithBothKernelsAndEveryLookupShare) {
-  // The portable scalar loops against the AVX-512 ones (the same code path where the CPU lacks
-  // AVX-512), and the lookup/grouped split moved from nearly all grouped to nearly all
-  // lookups: M, L and Q must not move.
+TEST(IsolatedValues, SameResultWithEveryKernelAndLookupShare) {
+  // The portable scalar loops against the AVX2 and the fastest (AVX-512 where the CPU has it)
+  // ones, and the lookup/grouped split moved from nearly all grouped to nearly all lookups:
+  // M, L and Q must not move.
+  std::vector<IsolatedKernels> kernels = {IsolatedKernels::fastest};
+  if (sqfc::arith::isolated_kernels_available(IsolatedKernels::avx2)) kernels.push_back(IsolatedKernels::avx2);
   std::mt19937_64 rng(20261202);
   std::uint64_t cases = 0;
   for (int i = 0; i < 24; ++i) {
     const Natural x = std::uniform_int_distribution<Natural>(1'000'000, 20'000'000'000ULL)(rng);
     IsolatedOptions portable = with(0, 1);
-    portable.portable_kernels = true;
+    portable.kernels = IsolatedKernels::portable;
     const auto reference = sqfc::arith::mertens_liouville_isolated(x, portable);
     const auto q_reference = sqfc::arith::squarefree_isolated(x, portable);
-    for (const double share : {0.0, 0.05, 1.0, 3.5}) {
-      IsolatedOptions o = with(0, 1 + static_cast<unsigned>(i % 2));
-      o.lookup_share = share;
-      const auto r = sqfc::arith::mertens_liouville_isolated(x, o);
-      EXPECT_EQ(r.mertens, reference.mertens) << "x=" << x << " share=" << share;
-      EXPECT_EQ(r.liouville, reference.liouville) << "x=" << x << " share=" << share;
-      EXPECT_EQ(sqfc::arith::squarefree_isolated(x, o), q_reference) << "x=" << x << " share=" << share;
-      ++cases;
+    for (const auto k : kernels) {
+      for (const double share : {0.0, 0.05, 1.0, 3.5}) {
+        IsolatedOptions o = with(0, 1 + static_cast<unsigned>(i % 2));
+        o.lookup_share = share;
+        o.kernels = k;
+        const auto r = sqfc::arith::mertens_liouville_isolated(x, o);
+        EXPECT_EQ(r.mertens, reference.mertens) << "x=" << x << " share=" << share;
+        EXPECT_EQ(r.liouville, reference.liouville) << "x=" << x << " share=" << share;
+        EXPECT_EQ(sqfc::arith::squarefree_isolated(x, o), q_reference) << "x=" << x << " share=" << share;
+        ++cases;
+      }
     }
   }
-  EXPECT_EQ(sqfc::arith::mertens_isolated(10'000'000'000'000ULL, with(0, 2)), 599582);  // OEIS A084237
-  IsolatedOptions portable = with(0, 2);
-  portable.portable_kernels = true;
-  EXPECT_EQ(sqfc::arith::mertens_isolated(10'000'000'000'000ULL, portable), 599582);  // OEIS A084237
-  EXPECT_EQ(cases, 96U);
+  EXPECT_EQ(cases, 96U * kernels.size());
+  for (const auto k : {IsolatedKernels::fastest, IsolatedKernels::avx2, IsolatedKernels::portable}) {
+    if (!sqfc::arith::isolated_kernels_available(k)) continue;
+    IsolatedOptions o = with(0, 2);
+    o.kernels = k;
+    EXPECT_EQ(sqfc::arith::mertens_isolated(10'000'000'000'000ULL, o), 599582);  // OEIS A084237
+  }
 }
 
 TEST(IsolatedValues, ConsecutiveDifferencesAreMuByFactoring) {

@@ -1,7 +1,7 @@
 // SPDX-License-Identifier: MIT
 // The inner loops of the mu sweep (src/arith/sweep_kernels.cpp) against plain integer
 // division: quotients that are exact integers, one below an integer, next to 2^44 and 2^48,
-// dividends near 2^64, and random cases; the AVX-512 version where the CPU has it.
+// dividends near 2^64, and random cases; the AVX2 and AVX-512 versions where the CPU has them.
 // Expected values: the oracle is the hardware division x / n computed in the test; no outside value is used.
 #include <gtest/gtest.h>
 
@@ -20,6 +20,7 @@ using sqfc::arith::detail::SweepKernels;
 
 std::vector<SweepKernels> kernels_here() {
   std::vector<SweepKernels> k = {SweepKernels::portable};
+  if (sqfc::arith::detail::avx2_sweep_kernels_available()) k.push_back(SweepKernels::avx2);
   if (sqfc::arith::detail::fastest_sweep_kernels() == SweepKernels::avx512) k.push_back(SweepKernels::avx512);
   return k;
 }

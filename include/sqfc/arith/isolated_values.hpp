@@ -23,6 +23,13 @@ inline constexpr Natural max_isolated_liouville_x = 10'000'000'000'000'000ULL;  
 /// Largest x that squarefree_isolated() accepts: 10^19 (Q(10^18) and Q near 10^19 compared in tests).
 inline constexpr Natural max_isolated_squarefree_x = 10'000'000'000'000'000'000ULL;
 
+/// Which inner loops the sweep runs: the fastest this CPU has (AVX-512, else AVX2 with FMA,
+/// else portable), or one forced. All give the same result; tests and benchmarks compare them.
+enum class IsolatedKernels { fastest, avx2, portable };
+
+/// Whether this CPU can run `kernels` (fastest and portable always; avx2 needs AVX2 and FMA).
+bool isolated_kernels_available(IsolatedKernels kernels) noexcept;
+
 /// How an isolated evaluation runs.
 struct IsolatedOptions {
   /// Worker threads (>= 1).
@@ -38,9 +45,8 @@ struct IsolatedOptions {
   /// Called now and then with the fraction done in [0, 1], one call at a time (under a lock,
   /// from any worker thread). It may throw to abort the run (the exception is rethrown).
   std::function<void(double)> progress;
-  /// Run the portable inner loops even on a CPU with AVX-512 (the default picks the fastest
-  /// the CPU has). Both give the same result; tests compare them.
-  bool portable_kernels = false;
+  /// The inner loops (checked: avx2 on a CPU without it is InvalidArgument).
+  IsolatedKernels kernels = IsolatedKernels::fastest;
 };
 
 /// The sieve limit Y that mertens_isolated(x) uses by default: about 0.5 x^(2/3), at least
