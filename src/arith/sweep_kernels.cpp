@@ -46,6 +46,17 @@ std::int32_t prefix_sums_portable(const std::int8_t* mu, std::size_t len, std::i
 }
 
 #if SQFC_HAVE_AVX512_KERNELS
+// The table entries at `count` indices, summed in two chains so that the loads overlap.
+template <int count, class Index>
+inline SignedSum table_sum(const std::int32_t* m_local, const Index* index) noexcept {
+  std::int64_t part0 = 0, part1 = 0;
+  for (int k = 0; k < count; k += 2) {
+    part0 += m_local[index[k]];
+    part1 += m_local[index[k + 1]];
+  }
+  return part0 + part1;
+}
+
 #define SQFC_AVX512 __attribute__((target("avx512f,avx512dq")))
 
 // Eight quotients floor(x / n) with the scalar version's correction, lane by lane.
@@ -75,12 +86,7 @@ SQFC_AVX512 SignedSum lookup_run_sum_avx512(Natural x, double x_double, Natural 
   for (; left >= 16; left -= 16) {
     _mm512_store_si512(index, _mm512_sub_epi64(quotients8(x_d, x_i, n0), base));
     _mm512_store_si512(index + 8, _mm512_sub_epi64(quotients8(x_d, x_i, n1), base));
-    std::int64_t part0 = 0, part1 = 0;
-    for (int k = 0; k < 16; k += 2) {
-      part0 += m_local[index[k]];
-      part1 += m_local[index[k + 1]];
-    }
-    sum += part0 + part1;
+    sum += table_sum<16>(m_local, index);
     n0 = _mm512_add_epi64(n0, step);
     n1 = _mm512_add_epi64(n1, step);
   }
@@ -177,12 +183,7 @@ SQFC_AVX2 SignedSum lookup_run_sum_avx2(Natural x, double x_double, Natural n_lo
     const __m256d q1 = corrected4(_mm256_round_pd(_mm256_div_pd(x_high, n1), _MM_FROUND_TO_ZERO | _MM_FROUND_NO_EXC), n1, x_high, x_low);
     _mm_store_si128(reinterpret_cast<__m128i*>(index), _mm256_cvttpd_epi32(_mm256_sub_pd(q0, base)));
     _mm_store_si128(reinterpret_cast<__m128i*>(index + 4), _mm256_cvttpd_epi32(_mm256_sub_pd(q1, base)));
-    std::int64_t part0 = 0, part1 = 0;
-    for (int k = 0; k < 8; k += 2) {
-      part0 += m_local[index[k]];
-      part1 += m_local[index[k + 1]];
-    }
-    sum += part0 + part1;
+    sum += table_sum<8>(m_local, index);
     n0 = _mm256_add_pd(n0, step);
     n1 = _mm256_add_pd(n1, step);
   }

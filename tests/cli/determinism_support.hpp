@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // Shared by the table determinism tests: run `sqfc table` into files, and keep the lines of a
 // table or events file from a given n on.
+// Expected values: none of its own; the oracle of the tests using it is another run of sqfc.
 #pragma once
 
 #include <gtest/gtest.h>

@@ -2,6 +2,7 @@
 // The output of `sqfc table` does not depend on how the work is cut up: thread count, sieve block
 // size, segment boundaries, or where --from starts reporting. Sizes are kept small for the default
 // suite; test_table_determinism_slow.cpp runs the same comparisons on larger ranges.
+// Expected values: the oracle is a run of sqfc with the default cut; no outside value is used.
 #include <gtest/gtest.h>
 
 #include "determinism_support.hpp"

@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // Larger versions of test_table_determinism.cpp (label `slow`): three segments of work, three
 // thread counts, four block sizes, --from deep inside a run to 10^7.
+// Expected values: the oracle is a run of sqfc with the default cut; no outside value is used.
 #include <gtest/gtest.h>
 
 #include "determinism_support.hpp"

@@ -3,6 +3,7 @@
 // names the offending option or value, nothing on stdout, and no output or partial file left behind.
 // Expected values: the error contract of design.md section 4 (exit code 2, one line); no
 // outside value is used.
+// The oracle is that contract itself (common practice for command-line tools: a usage error is exit 2).
 #include <gtest/gtest.h>
 
 #include "cli_runner.hpp"

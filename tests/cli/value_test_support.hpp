@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
 // Runs `sqfc value` and `sqfc table` at the same n and reads their CSV rows by column name.
+// Expected values: none of its own; the oracle is the other command (`sqfc table`) at the same n.
 #pragma once
 
 #include <map>
