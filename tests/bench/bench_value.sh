@@ -6,8 +6,8 @@
 # Usage: tests/bench/bench_value.sh [options] [BUILD_DIR]
 #   --build-dir DIR   build tree (default build-bench); also accepted as the one positional argument
 #   --no-build        use the tree as it is (it must be Release and hold the sqfc target)
-#   --max K           largest M argument 10^K, 12 <= K <= 18 (default 16; 17 adds about 5 minutes,
-#                     18 about 30 more: the check of the top of M's range); 0 skips the M rows
+#   --max K           largest M argument 10^K, 12 <= K <= 19 (default 16; 17 adds about 5 minutes,
+#                     18 about 30 more, 19 about 125 more: the check of the top of M's range); 0 skips the M rows
 #   --repeats R       runs per size (default 1); the median wall time is reported
 #   --threads T       passed to sqfc value (default: its own default, every hardware thread)
 #   --out-dir DIR     where the CSV goes (default data_out/bench)
@@ -52,11 +52,11 @@ while (($#)); do
   esac
 done
 [[ "$REPEATS" =~ ^[1-9][0-9]*$ ]] || bench_die "--repeats must be a positive integer"
-[[ "$MAX" =~ ^(1[2-8]|0)$ ]] || bench_die "--max must be 12 .. 18, or 0"
+[[ "$MAX" =~ ^(1[2-9]|0)$ ]] || bench_die "--max must be 12 .. 19, or 0"
 
 # M(10^k): OEIS A084237 (12..15, 17 and 18 from memory, each also reproduced by this code);
 # 10^16: M. Deléglise, J. Rivat, Experimental Mathematics 5 (1996), abstract.
-declare -A PUB_M=([12]=62366 [13]=599582 [14]=-875575 [15]=-3216373 [16]=-3195437 [17]=-21830254 [18]=-46758740)
+declare -A PUB_M=([12]=62366 [13]=599582 [14]=-875575 [15]=-3216373 [16]=-3195437 [17]=-21830254 [18]=-46758740 [19]=899990187)
 PUB_Q18=607927101854022750  # OEIS A071172 (from memory)
 
 if ((BUILD)); then

@@ -97,7 +97,7 @@ TEST(ValueCommand, BadInputIsOneLineAndExitTwo) {
       {{"value", "1x"}, "1x"},
       {{"value", "-5"}, "-5"},
       {{"value", "2^64"}, "2^64"},
-      {{"value", "100", "1000000000000000001", "--what", "mertens"}, "1000000000000000001"},
+      {{"value", "100", "10000000000000000001", "--what", "mertens"}, "10000000000000000001"},
       {{"value", "1e17", "--what", "liouville"}, "1e17"},
       {{"value", "10000000000000001", "--what", "liouville"}, "10000000000000001"},
       {{"value", "1e20", "--what", "squarefree"}, "1e20"},

@@ -11,10 +11,11 @@ namespace sqfc::arith {
 
 /// Largest x that mertens_isolated() accepts (and the Fredholm sign, which needs M and Q).
 /// The 128-bit bounds of docs/algorithms/mertens-isolated.md hold for every x < 2^64; this is
-/// the largest x the result was compared at: M(10^18) = -46758740 (OEIS A084237) in a 27-minute
-/// run, reproducible by tests/bench/bench_value.sh --max 18; M(10^17) against A084237 in a
-/// slow test; M(10^16) - M(10^16 - 1) = mu(10^16) by factoring. Nothing beyond is claimed.
-inline constexpr Natural max_isolated_mertens_x = 1'000'000'000'000'000'000ULL;  // 10^18
+/// the largest x the result was compared at: M(10^19) = 899990187 (OEIS A084237) in a 125-minute
+/// run on two cores, reproducible by tests/bench/bench_value.sh --max 19; M(10^18) the same way,
+/// M(10^17) against A084237 in a slow test; M(10^16) - M(10^16 - 1) = mu(10^16) by factoring.
+/// Nothing beyond is claimed.
+inline constexpr Natural max_isolated_mertens_x = 10'000'000'000'000'000'000ULL;  // 10^19
 
 /// Largest x that liouville_isolated() and mertens_liouville_isolated() accept: 10^16, the
 /// largest x where L was compared (L(x) - L(x-1) = lambda(x) next to 10^15 and 10^16).
