@@ -2,10 +2,14 @@
 // Shared pieces of the isolated-value tests: prefix sums by the segmented sieve (the
 // independent method; the sieve itself is checked against trial division, FLINT and PARI in
 // test_sieve*.cpp) and the sieve limits that split the computation differently.
-// Expected values: all come from the segmented sieve oracle here; no outside value is used.
+// Expected values: the segmented sieve oracle, and the reader of the OEIS A084236 b-file
+// (M(2^k), from memory) that the M tests share.
 #pragma once
 
 #include <cstdint>
+#include <fstream>
+#include <string>
+#include <utility>
 #include <vector>
 
 #include "sqfc/arith/isolated_values.hpp"
@@ -41,6 +45,19 @@ inline std::vector<std::uint64_t> split_limits(std::uint64_t x) {
     if (u < y) limits.push_back(y);
   }
   return limits;
+}
+
+/// The (k, M(2^k)) rows of tests/data/bfile/a084236_mertens_pow2.txt (OEIS A084236, k = 0..30,
+/// from memory); empty when the file is missing.
+inline std::vector<std::pair<int, std::int64_t>> mertens_powers_of_two(const std::string& path) {
+  std::vector<std::pair<int, std::int64_t>> rows;
+  std::ifstream in(path);
+  for (std::string line; std::getline(in, line);) {
+    if (line.empty() || line[0] == '#') continue;
+    const auto space = line.find(' ');
+    rows.emplace_back(std::stoi(line.substr(0, space)), std::stoll(line.substr(space + 1)));
+  }
+  return rows;
 }
 
 }  // namespace sqfc::testing

@@ -145,15 +145,8 @@ TEST(IsolatedValues, MertensAtPowersOfTenPublished) {
 TEST(IsolatedValues, MertensAtPowersOfTwoPublished) {
   // OEIS A084236, k = 0..30 (tests/data/bfile/a084236_mertens_pow2.txt, from memory, checked
   // there against the trial-division oracle).
-  std::ifstream in(data("bfile/a084236_mertens_pow2.txt"));
-  ASSERT_TRUE(in) << "missing b-file";
-  std::string line;
   std::uint64_t cases = 0;
-  while (std::getline(in, line)) {
-    if (line.empty() || line[0] == '#') continue;
-    const auto space = line.find(' ');
-    const int k = std::stoi(line.substr(0, space));
-    const std::int64_t value = std::stoll(line.substr(space + 1));
+  for (const auto& [k, value] : sqfc::testing::mertens_powers_of_two(data("bfile/a084236_mertens_pow2.txt"))) {
     EXPECT_EQ(sqfc::arith::mertens_isolated(Natural{1} << k, with(0, 2)), value) << "x=2^" << k;
     ++cases;
   }

@@ -9,10 +9,10 @@
 
 #include <cmath>
 #include <cstdint>
-#include <fstream>
 #include <random>
 #include <string>
 
+#include "arith/isolated_values_test_support.hpp"
 #include "oracles/brute_force.hpp"
 #include "oracles/published_csv.hpp"
 #include "oracles/test_support.hpp"
@@ -114,15 +114,8 @@ TEST(MertensHelfgottThompson, MertensAtPowersOfTenPublished) {
 
 TEST(MertensHelfgottThompson, MertensAtPowersOfTwoPublished) {
   // OEIS A084236, k = 0..30 (tests/data/bfile/a084236_mertens_pow2.txt, from memory).
-  std::ifstream in(data("bfile/a084236_mertens_pow2.txt"));
-  ASSERT_TRUE(in) << "missing b-file";
-  std::string line;
   std::uint64_t cases = 0;
-  while (std::getline(in, line)) {
-    if (line.empty() || line[0] == '#') continue;
-    const auto space = line.find(' ');
-    const int k = std::stoi(line.substr(0, space));
-    const std::int64_t value = std::stoll(line.substr(space + 1));
+  for (const auto& [k, value] : sqfc::testing::mertens_powers_of_two(data("bfile/a084236_mertens_pow2.txt"))) {
     EXPECT_EQ(mertens_isolated_helfgott_thompson(Natural{1} << k), value) << "x=2^" << k;
     ++cases;
   }

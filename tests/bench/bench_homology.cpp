@@ -60,7 +60,15 @@
 #include "sqfc/core/number_parse.hpp"
 #include "sqfc/topology/persistence.hpp"
 
+#include "bench_support.hpp"
+
 namespace {
+
+using sqfc::bench::cpu_model;
+using sqfc::bench::load_average;
+using sqfc::bench::median;
+using sqfc::bench::shell_line;
+using sqfc::bench::utc_now;
 
 using sqfc::Natural;
 using sqfc::topology::Bar;
@@ -232,46 +240,6 @@ void run_gudhi(Natural n, Report& r, std::vector<Bar>& bars) {
   std::sort(bars.begin(), bars.end());
   r.bars = bars.size();
   r.hash = hash_bars(bars);
-}
-
-std::string shell_line(const std::string& command) {
-  std::string out;
-  if (FILE* f = popen(command.c_str(), "r")) {
-    char buffer[512];
-    while (std::fgets(buffer, sizeof buffer, f)) out += buffer;
-    pclose(f);
-  }
-  while (!out.empty() && (out.back() == '\n' || out.back() == '\r')) out.pop_back();
-  return out;
-}
-
-std::string cpu_model() {
-  std::ifstream in("/proc/cpuinfo");
-  for (std::string line; std::getline(in, line);)
-    if (line.rfind("model name", 0) == 0) return line.substr(line.find(':') + 2);
-  return "unknown";
-}
-
-std::string utc_now(const char* format) {
-  const std::time_t t = std::time(nullptr);
-  std::tm tm{};
-  gmtime_r(&t, &tm);
-  char buffer[64];
-  std::strftime(buffer, sizeof buffer, format, &tm);
-  return buffer;
-}
-
-std::string load_average() {
-  std::ifstream in("/proc/loadavg");
-  std::string a, b, c;
-  in >> a >> b >> c;
-  return a + " " + b + " " + c;
-}
-
-double median(std::vector<double> v) {
-  std::sort(v.begin(), v.end());
-  const auto m = v.size() / 2;
-  return v.size() % 2 ? v[m] : (v[m - 1] + v[m]) / 2;
 }
 
 std::string mib(std::int64_t kib) {

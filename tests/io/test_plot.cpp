@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // The plot module: input recognition, the envelope file, every picture kind in PNG, SVG and PDF,
 // scripts that gnuplot can re-run, and refusals (wrong kind, missing gnuplot, large barcodes).
+// Expected values are the inputs the tests write themselves (no outside values).
 #include <gtest/gtest.h>
 #include <unistd.h>
 

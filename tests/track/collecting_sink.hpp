@@ -1,5 +1,6 @@
 // SPDX-License-Identifier: MIT
-// A TableSink for tests: keeps every row and event of a run in memory.
+// A TableSink for tests: keeps every row and event of a run in memory. No expected values here;
+// the tests that use it name their oracles.
 #pragma once
 
 #include <vector>

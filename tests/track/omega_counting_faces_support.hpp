@@ -1,6 +1,7 @@
 // SPDX-License-Identifier: MIT
 // Compares count_by_omega (arith) with the f-vector and Betti numbers of the table engine (track)
-// at sample points: two independent routes, counting over primes and sieving every n.
+// at sample points: two independent routes, counting over primes and sieving every n. The oracle is
+// the other route; no outside values.
 #pragma once
 
 #include <gtest/gtest.h>

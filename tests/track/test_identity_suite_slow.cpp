@@ -1,6 +1,8 @@
 // SPDX-License-Identifier: MIT
 // The identity suite with its default sub-ranges (bordered inverse to 3000, FLINT to 1000, LAPACK
 // at 1000, every Green entry at 3000, H_n to 5000): every check passes and covers those ranges.
+// Oracle: the suite's own second routes (FLINT, LAPACK, brute force); the expected counts and
+// ranges are the suite's documented defaults (common practice: a test pins its own configuration).
 #include <gtest/gtest.h>
 
 #include "sqfc/track/identity_suite.hpp"
